@@ -103,6 +103,12 @@ public final class MethodLoader {
       }
       return Optional.of(root);
     } catch (MarkedYAMLException e) {
+      String problem = e.getProblem() == null ? "" : e.getProblem();
+      if (problem.startsWith("Global tag is not allowed: ")) {
+        problems.add(e.getProblemMark(), "", "explicit type tag '" + problem.substring("Global tag is not allowed: ".length())
+            + "' is not allowed", "plain values; a method file never names Java types");
+        return Optional.empty();
+      }
       String what = e.getProblem() == null ? "is not valid YAML" : "is not valid YAML: " + e.getProblem();
       problems.add(e.getProblemMark() != null ? e.getProblemMark() : e.getContextMark(), "", what.trim(), "well-formed YAML");
       return Optional.empty();

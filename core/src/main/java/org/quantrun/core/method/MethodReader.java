@@ -547,9 +547,11 @@ final class MethodReader {
       p.at(m.join("from-level"), "give true-values or from-level, not both", "only one of true-values, from-level");
     }
     Optional<String> from = m.text("from-level");
+    boolean badLevel = false;
     if (from.isPresent()) {
       Optional<StandardLevel> level = levels.stream().filter(l -> l.name().equals(from.get())).findFirst();
       if (level.isEmpty()) {
+        badLevel = true;
         List<String> ln = levels.stream().map(StandardLevel::name).toList();
         p.at(m.join("from-level"), "level '" + from.get() + "' is not a standard level"
             + Suggestions.closest(from.get(), ln).map(n -> ", did you mean '" + n + "'?").orElse(""), "one of: " + String.join(", ", ln));
@@ -561,7 +563,9 @@ final class MethodReader {
     }
     values.putAll(m.numberMap("true-values", Bound.POSITIVE));
     List<String> exempt = m.words("exempt");
-    complete(m, from.isPresent() ? "from-level" : "true-values", values.keySet(), exempt, names);
+    if (!badLevel) {
+      complete(m, from.isPresent() ? "from-level" : "true-values", values.keySet(), exempt, names);
+    }
     return new CheckStandard(values, exempt, window(m, "recovery", dflt));
   }
 
