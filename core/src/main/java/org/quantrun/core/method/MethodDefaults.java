@@ -3,8 +3,8 @@ package org.quantrun.core.method;
 import java.util.List;
 
 /**
- * The values the loader fills in for keys a method leaves out. Conventions follow the project's
- * domain notes (section 8); acceptance limits are examples of common published windows, recalled
+ * The values the loader fills in for keys a method leaves out. Conventions are the ones quantrun
+ * follows where labs differ; acceptance limits are examples of common published windows, recalled
  * from memory, never rules: every lab sets its own in the method file.
  */
 public final class MethodDefaults {
