@@ -67,7 +67,8 @@ class ExampleContentTest {
     assertEquals(FitPoints.READINGS, m.analyte("Ag 107").orElseThrow().fitPoints());
     assertEquals(Optional.of(0.998), m.qc().calibration().minR2());
     assertEquals(Optional.empty(), m.qc().calibration().minR());
-    assertEquals(Optional.of("profiles/ms-batch-export.yaml"), m.importSettings().profile());
+    assertEquals(Optional.empty(), m.importSettings().profile());
+    assertEquals("3", m.importSettings().settings().get("reading-columns"));
     assertTrue(m.importSettings().detect());
     assertEquals(Optional.of("standard T1"), firstRule(m, "STD-T1"), "named group template");
     assertEquals(Optional.of("spike-duplicate GW-26-0311"), firstRule(m, "GW-26-0311-MSD"));

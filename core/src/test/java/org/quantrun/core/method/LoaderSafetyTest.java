@@ -169,6 +169,13 @@ class LoaderSafetyTest {
   }
 
   @Test
+  @DisplayName("a relative import-profile path is kept as written for the runner to resolve")
+  void relativeProfileIsKept() throws MethodException {
+    String text = BASE.replace("dilution:\n", "import:\n  profile: profiles/ms-export.yaml\ndilution:\n");
+    assertEquals(Optional.of("profiles/ms-export.yaml"), MethodLoader.load(text, "p.yaml").importSettings().profile());
+  }
+
+  @Test
   @DisplayName("an absolute import-profile path is refused")
   void absoluteProfileIsRefused() {
     String text = BASE.replace("dilution:\n", "import:\n  profile: /etc/profile.yaml\ndilution:\n");
