@@ -50,6 +50,11 @@ public final class CheckCommand implements Callable<Integer> {
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
+  /**
+   * Checks the method file.
+   *
+   * @return 0 when the method is valid, {@link Main#EXIT_INPUT_ERROR} otherwise
+   */
   @Override
   public Integer call() {
     PrintWriter out = spec.commandLine().getOut();

@@ -14,7 +14,13 @@ import java.util.Optional;
  */
 public record CheckStandard(Map<String, Double> trueValues, List<String> exempt, Window recovery) {
 
-  /** Copies the collections into unmodifiable ones. */
+  /**
+   * Copies the collections into unmodifiable ones.
+   *
+   * @param trueValues analyte name to true concentration (analyte's unit), unmodifiable
+   * @param exempt analyte names explicitly not checked by this standard
+   * @param recovery the accepted recovery, percent
+   */
   public CheckStandard {
     trueValues = Collections2.orderedCopy(trueValues);
     exempt = List.copyOf(exempt);

@@ -21,7 +21,11 @@ public record IdRule(String pattern, SampleRole role, Optional<String> level, Op
   /**
    * Checks the pattern compiles.
    *
-   * @throws java.util.regex.PatternSyntaxException if it does not
+   * @param pattern the regular expression (Java syntax), matched against the whole ID
+   * @param role the role an ID that matches gets
+   * @param level template of the standard level's name (role {@code standard})
+   * @param of template of the parent sample's ID (roles duplicate, spike, spike-duplicate, serial-dilution)
+   * @throws java.util.regex.PatternSyntaxException if the pattern does not compile
    */
   public IdRule {
     Pattern.compile(pattern);

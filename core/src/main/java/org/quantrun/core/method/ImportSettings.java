@@ -15,7 +15,13 @@ public record ImportSettings(String importer, Optional<String> profile, Map<Stri
   /** The importer id that asks for detection. */
   public static final String AUTO = "auto";
 
-  /** Copies the settings into an unmodifiable map. */
+  /**
+   * Copies the settings into an unmodifiable map.
+   *
+   * @param importer the importer id, or {@value #AUTO} to let the importers detect the export
+   * @param profile an import-profile file, relative to the method file (the runner resolves it)
+   * @param settings free-form importer settings, name to value, unmodifiable, in file order
+   */
   public ImportSettings {
     settings = Collections2.orderedCopy(settings);
   }

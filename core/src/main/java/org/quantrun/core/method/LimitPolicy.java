@@ -21,7 +21,16 @@ public record LimitPolicy(
     double calibrationLodMultiplier,
     double calibrationLoqMultiplier) {
 
-  /** Copies the order into an unmodifiable list. */
+  /**
+   * Copies the order into an unmodifiable list.
+   *
+   * @param order the sources to try, in order, without repeats
+   * @param minBlankReplicates fewest calibration-blank replicates that make run-blank limits
+   * @param blankLodMultiplier LOD = this * s_blank / slope
+   * @param blankLoqMultiplier LOQ = this * s_blank / slope
+   * @param calibrationLodMultiplier LOD = this * s0 / slope
+   * @param calibrationLoqMultiplier LOQ = this * s0 / slope
+   */
   public LimitPolicy {
     order = List.copyOf(order);
   }

@@ -32,7 +32,21 @@ public record Method(
     QcPlan qc,
     ReportingRules reporting) {
 
-  /** Copies the lists into unmodifiable ones. */
+  /**
+   * Copies the lists into unmodifiable ones.
+   *
+   * @param identity id, version, description and default unit
+   * @param importSettings how the run's export is read
+   * @param analytes the analyte lines, in file order, unique by {@link Analyte#key()}
+   * @param internalStandards the internal standards, unique by name
+   * @param standards the calibration levels, unique by name
+   * @param blanks blank handling
+   * @param identification how injections get their roles
+   * @param dilution where dilution factors come from
+   * @param limits which limits results use
+   * @param qc the QC plan and acceptance limits
+   * @param reporting how results are written
+   */
   public Method {
     analytes = List.copyOf(analytes);
     internalStandards = List.copyOf(internalStandards);

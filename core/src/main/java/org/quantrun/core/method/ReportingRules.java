@@ -22,7 +22,16 @@ public record ReportingRules(
     BetweenLodLoqStyle betweenLodLoq,
     Map<ResultFlag, String> qualifiers) {
 
-  /** Copies the qualifiers into an unmodifiable map. */
+  /**
+   * Copies the qualifiers into an unmodifiable map.
+   *
+   * @param significantFigures significant figures of reported values (QC is judged unrounded)
+   * @param rounding the rounding rule
+   * @param belowLod how a result below the LOD is written
+   * @param belowLodText the text written when {@code belowLod} is {@link BelowLodStyle#TEXT}, else empty
+   * @param betweenLodLoq how a result between LOD and LOQ is written
+   * @param qualifiers quantrun flag to the lab's own qualifier code, unmodifiable; a flag with no entry is written by its own name
+   */
   public ReportingRules {
     qualifiers = Collections2.orderedCopy(qualifiers);
   }

@@ -16,7 +16,15 @@ import java.util.Map;
 public record SpikeRule(
     Map<String, Double> added, List<String> exempt, Window recovery, double maxBackgroundRatio, PairRule duplicate) {
 
-  /** Copies the collections into unmodifiable ones. */
+  /**
+   * Copies the collections into unmodifiable ones.
+   *
+   * @param added analyte name to concentration added to the final solution, unmodifiable
+   * @param exempt analyte names explicitly not spiked
+   * @param recovery the accepted recovery, percent
+   * @param maxBackgroundRatio unspiked / added above which the recovery is not evaluated
+   * @param duplicate the rule for the spike / spike-duplicate pair
+   */
   public SpikeRule {
     added = Collections2.orderedCopy(added);
     exempt = List.copyOf(exempt);

@@ -13,7 +13,12 @@ import java.util.Optional;
  */
 public record StandardLevel(String name, Map<String, Double> concentrations) {
 
-  /** Copies the concentrations into an unmodifiable map. */
+  /**
+   * Copies the concentrations into an unmodifiable map.
+   *
+   * @param name the level's name, e.g. {@code S3}
+   * @param concentrations analyte name to concentration (in each analyte's unit), positive values, unmodifiable, in file order
+   */
   public StandardLevel {
     concentrations = Collections2.orderedCopy(concentrations);
   }

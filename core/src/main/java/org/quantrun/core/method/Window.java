@@ -11,7 +11,9 @@ public record Window(double low, double high) {
   /**
    * Checks the window is ordered.
    *
-   * @throws IllegalArgumentException if {@code low >= high} or an end is not finite
+   * @param low lowest accepted value, percent
+   * @param high highest accepted value, percent; greater than {@code low}
+   * @throws IllegalArgumentException if the ends are not ordered
    */
   public Window {
     if (!Double.isFinite(low) || !Double.isFinite(high) || low >= high) {

@@ -11,7 +11,9 @@ public record WorkingRange(double low, double high) {
   /**
    * Checks the range is ordered.
    *
-   * @throws IllegalArgumentException if {@code low < 0} or {@code low >= high}
+   * @param low lowest reportable concentration, not negative
+   * @param high highest reportable concentration, greater than {@code low}
+   * @throws IllegalArgumentException if the ends are not ordered
    */
   public WorkingRange {
     if (!(low >= 0) || !(high > low) || !Double.isFinite(high)) {

@@ -11,7 +11,12 @@ import java.util.Optional;
  */
 public record PrepSheet(String source, List<PrepSheetRow> rows) {
 
-  /** Copies the rows into an unmodifiable list. */
+  /**
+   * Copies the rows into an unmodifiable list.
+   *
+   * @param source the file name it was read as
+   * @param rows its rows in file order, unique by sample ID
+   */
   public PrepSheet {
     rows = List.copyOf(rows);
   }
