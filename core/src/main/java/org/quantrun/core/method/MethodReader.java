@@ -85,6 +85,7 @@ final class MethodReader {
   private static final Pattern NAMED_GROUP = Pattern.compile("\\(\\?<([A-Za-z][A-Za-z0-9]*)>");
 
   private final Problems p;
+  private final Set<SampleRole> statedRuleRoles = java.util.EnumSet.noneOf(SampleRole.class);
 
   MethodReader(Problems problems) {
     this.p = problems;
@@ -97,7 +98,7 @@ final class MethodReader {
       return Optional.empty();
     }
     YamlMap t = top.get();
-    for (String required : List.of("method", "analytes", "standards", "qc")) {
+    for (String required : List.of("method", "analytes", "standards", "identification", "qc")) {
       if (!t.has(required)) {
         t.missing(required, "a '" + required + "' section");
       }
@@ -114,6 +115,9 @@ final class MethodReader {
     QcPlan qc = qc(t, analytes, levels);
     ReportingRules reporting = reporting(t);
     checkCalibrations(analytes, levels, blanks);
+    if (t.has("identification")) {
+      checkIdentifiable(id, blanks);
+    }
     if (!p.isEmpty()) {
       return Optional.empty();
     }
@@ -189,7 +193,7 @@ final class MethodReader {
   private List<Analyte> analytes(YamlMap t, ConcentrationUnit defaultUnit, List<InternalStandard> iss) {
     List<Analyte> out = new ArrayList<>();
     List<YamlMap> items = t.maps("analytes", ANALYTE);
-    if (t.has("analytes") && items.isEmpty() && p.isEmpty()) {
+    if (isEmptyList(t, "analytes")) {
       p.at("analytes", "the method has no analytes", "at least one analyte");
     }
     Set<String> keys = new LinkedHashSet<>();
@@ -249,7 +253,7 @@ final class MethodReader {
     List<String> names = analyteNames(analytes);
     Set<String> levelNames = new LinkedHashSet<>();
     List<YamlMap> items = t.maps("standards", LEVEL);
-    if (t.has("standards") && items.isEmpty() && p.isEmpty()) {
+    if (isEmptyList(t, "standards")) {
       p.at("standards", "the method has no standard levels", "at least one level");
     }
     for (YamlMap m : items) {
@@ -262,10 +266,17 @@ final class MethodReader {
         m.missing("concentrations", "analyte name to concentration");
       }
       Map<String, Double> conc = m.numberMap("concentrations", Bound.POSITIVE);
+      if (m.node("concentrations").map(n -> n instanceof org.yaml.snakeyaml.nodes.MappingNode mn && mn.getValue().isEmpty()).orElse(false)) {
+        p.at(path + ".concentrations", "level '" + name + "' has no concentrations", "at least one analyte name with its concentration");
+      }
       checkNames(conc.keySet(), names, path + ".concentrations", "analyte");
       out.add(new StandardLevel(name, conc));
     }
     return out;
+  }
+
+  private static boolean isEmptyList(YamlMap t, String key) {
+    return t.node(key).map(n -> n instanceof org.yaml.snakeyaml.nodes.SequenceNode seq && seq.getValue().isEmpty()).orElse(false);
   }
 
   private void checkNames(Iterable<String> used, List<String> known, String path, String what) {
@@ -349,6 +360,7 @@ final class MethodReader {
     if (role.isEmpty()) {
       return Optional.empty();
     }
+    statedRuleRoles.add(role.get());
     boolean needsParent = Set.of(SampleRole.DUPLICATE, SampleRole.SPIKE, SampleRole.SPIKE_DUPLICATE, SampleRole.SERIAL_DILUTION)
         .contains(role.get());
     if (needsParent && of.isEmpty()) {
@@ -563,6 +575,9 @@ final class MethodReader {
     }
     values.putAll(m.numberMap("true-values", Bound.POSITIVE));
     List<String> exempt = m.words("exempt");
+    if (from.isPresent()) {
+      exempt.forEach(values::remove); // a level may hold analytes this check leaves out
+    }
     if (!badLevel) {
       complete(m, from.isPresent() ? "from-level" : "true-values", values.keySet(), exempt, names);
     }
@@ -657,6 +672,25 @@ final class MethodReader {
   }
 
   // ---- checks across sections ----
+
+  /** The roles the calibration and its checks need can be found, and a standard found by type can get its level. */
+  private void checkIdentifiable(Identification id, BlankPolicy blanks) {
+    Set<SampleRole> byType = Set.copyOf(id.typeValues().values());
+    Set<SampleRole> byRule = statedRuleRoles; // a rule with a broken pattern still states its role
+    List<SampleRole> needed = new ArrayList<>(List.of(SampleRole.STANDARD, SampleRole.ICV, SampleRole.CCV));
+    if (blanks.calibrationBlank() != CalibrationBlankHandling.NONE) {
+      needed.add(0, SampleRole.CALIBRATION_BLANK);
+    }
+    List<String> missing = needed.stream().filter(r -> !byType.contains(r) && !byRule.contains(r)).map(SampleRole::token).toList();
+    if (!missing.isEmpty()) {
+      p.at("identification", "nothing identifies the role" + (missing.size() > 1 ? "s " : " ") + String.join(", ", missing),
+          "a type-values entry or a rule for each");
+    }
+    if (byType.contains(SampleRole.STANDARD) && id.levelColumn().isEmpty() && !byRule.contains(SampleRole.STANDARD)) {
+      p.at("identification.type-values", "standards found by the type column have no way to get their level",
+          "identification.level-column, or a standard rule with a level");
+    }
+  }
 
   /** Enough distinct levels for every curve; weighting compatible with the levels and blank handling. */
   private void checkCalibrations(List<Analyte> analytes, List<StandardLevel> levels, BlankPolicy blanks) {

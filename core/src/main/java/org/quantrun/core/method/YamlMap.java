@@ -233,7 +233,7 @@ final class YamlMap {
     for (int i = 0; i < items.size(); i++) {
       text(items.get(i), join(key) + "[" + i + "]", problems).ifPresent(out::add);
     }
-    return out;
+    return out; // mutable on purpose: callers copy it into records
   }
 
   /** A mapping from free keys (names of our user's own) to numbers in {@code bound}. */

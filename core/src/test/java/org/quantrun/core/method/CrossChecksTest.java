@@ -55,7 +55,15 @@ class CrossChecksTest {
         Arguments.of("below-lod-text without below-lod: text", List.of("  significant-figures: 3\n", "  significant-figures: 3\n  below-lod-text: nd\n"),
             "reporting.below-lod-text", "below-lod-text is used only with below-lod: text"),
         Arguments.of("no way to identify injections", List.of("identification:\n  rules:", "identification:\n  order: rules-first\n  rulez:"),
-            "identification.rulez", "unknown key, did you mean 'rules'?"));
+            "identification.rulez", "unknown key, did you mean 'rules'?"),
+        Arguments.of("nothing identifies the CCV", List.of("    - {pattern: 'CCV\\d*', role: ccv}\n", ""),
+            "identification", "nothing identifies the role ccv"),
+        Arguments.of("standards by type with no way to their level",
+            List.of("  rules:\n    - pattern: 'CAL(\\d)'\n      role: standard\n      level: 'S$1'\n", "  type-column: K\n  type-values: {S: standard}\n  rules:\n"),
+            "identification.type-values", "standards found by the type column have no way to get their level"),
+        Arguments.of("a level with no concentrations", List.of("{Pb: 5, Cd: 1}", "{}"), "standards[0].concentrations", "level 'S1' has no concentrations"),
+        Arguments.of("an empty analyte list", List.of("analytes:\n", "analytes: []\nx-analytes:\n"), "analytes", "the method has no analytes"),
+        Arguments.of("no identification section", List.of("identification:\n", "x-identification:\n"), "identification", "is missing"));
   }
 
   @DisplayName("a rule between keys is enforced with a message at the key that breaks it")
@@ -66,6 +74,13 @@ class CrossChecksTest {
     MethodException e = assertThrows(MethodException.class, () -> MethodLoader.load(text, "m.yaml"));
     assertTrue(e.problems().stream().anyMatch(p -> p.path().equals(path) && p.message().contains(message)), e.getMessage());
     assertTrue(e.problems().stream().allMatch(p -> p.line() > 0), () -> "every problem has a line: " + e.getMessage());
+  }
+
+  @DisplayName("with from-level, exempt analytes are taken out of the level's values")
+  @org.junit.jupiter.api.Test
+  void fromLevelWithExempt() throws MethodException {
+    String text = BrokenVariantsTest.apply(List.of("from-level: S2\n", "from-level: S2\n    exempt: [Cd]\n"));
+    assertEquals(java.util.Map.of("Pb", 50.0), MethodLoader.load(text, "m.yaml").qc().ccv().standard().trueValues());
   }
 
   @DisplayName("a one-point through-zero curve with no weighting is accepted")

@@ -101,7 +101,8 @@ class ExampleContentTest {
         "method: {id: M, version: 1, unit: ug/L}",
         "analytes: [{name: Pb}]",
         "standards: [{level: A, concentrations: {Pb: 1}}, {level: B, concentrations: {Pb: 10}}]",
-        "identification: {rules: [{pattern: 'STD(.)', role: standard, level: '$1'}]}",
+        "identification: {rules: [{pattern: 'STD(.)', role: standard, level: '$1'}, {pattern: BLK, role: calibration-blank},",
+        "  {pattern: ICV, role: icv}, {pattern: CCV, role: ccv}]}",
         "qc: {icv: {true-values: {Pb: 5}}, ccv: {from-level: B}}", "");
     Method m = MethodLoader.load(minimal, "minimal.yaml");
     Analyte pb = m.analytes().get(0);
@@ -137,7 +138,7 @@ class ExampleContentTest {
         "method: {id: M, version: 1, unit: ug/L}",
         "analytes: [{name: Pb}]",
         "standards: [{level: A, concentrations: {Pb: 1}}, {level: B, concentrations: {Pb: 10}}]",
-        "identification: {type-column: T, type-values: {STD: standard}, level-column: L}",
+        "identification: {type-column: T, type-values: {STD: standard, B: calibration-blank, I: icv, C: ccv}, level-column: L}",
         "qc: {icv: {exempt: [Pb]}, ccv: {from-level: B, recovery: {low: 85, high: 115}},",
         "     internal-standard: {recovery: {low: 30, high: 120}}, calibration: {min-r: 0.998}}", "");
     Method m = MethodLoader.load(text, "override.yaml");
