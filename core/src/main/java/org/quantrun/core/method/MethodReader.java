@@ -380,6 +380,12 @@ final class MethodReader {
       if (tpl.isEmpty() || groups < 0) {
         continue;
       }
+      String rest = GROUP_REF.matcher(tpl.get().replaceAll("\\\\.", "")).replaceAll("");
+      if (rest.contains("$") || rest.contains("\\")) {
+        p.at(path + "." + key, "template '" + tpl.get() + "' has a '$' or '\\' that is not a group reference",
+            "$1 or ${name} for a group, \\$ for a literal $");
+        continue;
+      }
       Matcher ref = GROUP_REF.matcher(tpl.get());
       boolean any = false;
       while (ref.find()) {

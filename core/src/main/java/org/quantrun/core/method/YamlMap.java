@@ -179,7 +179,7 @@ final class YamlMap {
     if (Tag.BOOL.equals(s.get().getTag()) && (v.equals("true") || v.equals("false"))) {
       return v.equals("true");
     }
-    problems.add(s.get(), join(key), "'" + v + "' is not a yes/no value", "true or false");
+    problems.add(s.get(), join(key), "'" + v + "' is not a truth value", "true or false");
     return fallback;
   }
 

@@ -63,6 +63,10 @@ class CrossChecksTest {
             "identification.type-values", "standards found by the type column have no way to get their level"),
         Arguments.of("a level with no concentrations", List.of("{Pb: 5, Cd: 1}", "{}"), "standards[0].concentrations", "level 'S1' has no concentrations"),
         Arguments.of("an empty analyte list", List.of("analytes:\n", "analytes: []\nx-analytes:\n"), "analytes", "the method has no analytes"),
+        Arguments.of("a template with a stray dollar", List.of("of: '$1'", "of: 'US$'"),
+            "identification.rules[1].of", "template 'US$' has a '$' or '\\' that is not a group reference"),
+        Arguments.of("a truth value spelt as a word", List.of("    frequency: 10\n", "    frequency: 10\n    non-detects-stand-after-high-bias: maybe\n"),
+            "qc.ccv.non-detects-stand-after-high-bias", "'maybe' is not a truth value"),
         Arguments.of("no identification section", List.of("identification:\n", "x-identification:\n"), "identification", "is missing"));
   }
 

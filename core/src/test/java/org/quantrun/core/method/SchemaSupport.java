@@ -20,8 +20,13 @@ final class SchemaSupport {
     return Fixtures.read(Fixtures.examples().resolve("method.schema.json"));
   }
 
-  static Schema schema() {
-    return SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12).getSchema(schemaText(), InputFormat.JSON);
+  private static Schema cached;
+
+  static synchronized Schema schema() {
+    if (cached == null) {
+      cached = SchemaRegistry.withDefaultDialect(SpecificationVersion.DRAFT_2020_12).getSchema(schemaText(), InputFormat.JSON);
+    }
+    return cached;
   }
 
   /** Schema errors of a YAML method text, as messages. */
