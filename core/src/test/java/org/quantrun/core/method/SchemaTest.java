@@ -31,6 +31,15 @@ class SchemaTest {
   }
 
   @Test
+  @DisplayName("the schema itself is valid against the JSON Schema 2020-12 meta-schema")
+  void schemaIsValidJsonSchema() {
+    // the meta-schema is published by json-schema.org; the validator ships a copy, so no network is used
+    var meta = com.networknt.schema.SchemaRegistry.withDefaultDialect(com.networknt.schema.SpecificationVersion.DRAFT_2020_12)
+        .getSchema(com.networknt.schema.SchemaLocation.of("https://json-schema.org/draft/2020-12/schema"));
+    assertEquals(List.of(), meta.validate(SchemaSupport.schemaText(), com.networknt.schema.InputFormat.JSON));
+  }
+
+  @Test
   @DisplayName("the test base method validates against the JSON Schema")
   void theBaseMethodValidates() {
     assertEquals(List.of(), SchemaSupport.errors(Fixtures.resource("base-method.yaml")));
