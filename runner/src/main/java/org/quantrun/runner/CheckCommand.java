@@ -61,7 +61,7 @@ public final class CheckCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     String name = method.getFileName() == null ? method.toString() : method.getFileName().toString();
     if (!Files.isRegularFile(method)) {
-      err.println("quantrun check: " + method + ": no such file");
+      err.println("quantrun check: " + method + (Files.exists(method) ? ": is not a file" : ": no such file"));
       return Main.EXIT_INPUT_ERROR;
     }
     Method m;

@@ -102,6 +102,10 @@ class CheckCommandTest {
     assertEquals(Main.EXIT_INPUT_ERROR, missing.exit());
     assertTrue(missing.err().contains("nope.yaml: no such file"), missing.err());
 
+    Run directory = run("check", dir.toString());
+    assertEquals(Main.EXIT_INPUT_ERROR, directory.exit());
+    assertTrue(directory.err().contains(": is not a file"), directory.err());
+
     Run noArg = run("check");
     assertEquals(Main.EXIT_INPUT_ERROR, noArg.exit());
     assertTrue(noArg.err().contains("METHOD.yaml"), noArg.err());
