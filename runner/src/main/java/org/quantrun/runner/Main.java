@@ -15,6 +15,7 @@ import picocli.CommandLine.Command;
     subcommands = {
       CommandLine.HelpCommand.class,
       org.quantrun.runner.calibrate.CalibrateCommand.class,
+      CheckCommand.class,
     })
 public final class Main implements Runnable {
 

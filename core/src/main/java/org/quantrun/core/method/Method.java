@@ -1,0 +1,95 @@
+package org.quantrun.core.method;
+
+import java.util.List;
+import java.util.Optional;
+
+/**
+ * A loaded and validated method: everything the processing of a run needs to know about the
+ * lab's procedure. Load one with {@link MethodLoader#load(String, String)}.
+ *
+ * @param identity id, version, description and default unit
+ * @param importSettings how the run's export is read
+ * @param analytes the analyte lines, in file order, unique by {@link Analyte#key()}
+ * @param internalStandards the internal standards, unique by name
+ * @param standards the calibration levels, unique by name
+ * @param blanks blank handling
+ * @param identification how injections get their roles
+ * @param dilution where dilution factors come from
+ * @param limits which limits results use
+ * @param qc the QC plan and acceptance limits
+ * @param reporting how results are written
+ */
+public record Method(
+    MethodIdentity identity,
+    ImportSettings importSettings,
+    List<Analyte> analytes,
+    List<InternalStandard> internalStandards,
+    List<StandardLevel> standards,
+    BlankPolicy blanks,
+    Identification identification,
+    DilutionScheme dilution,
+    LimitPolicy limits,
+    QcPlan qc,
+    ReportingRules reporting) {
+
+  /**
+   * Copies the lists into unmodifiable ones.
+   *
+   * @param identity id, version, description and default unit
+   * @param importSettings how the run's export is read
+   * @param analytes the analyte lines, in file order, unique by {@link Analyte#key()}
+   * @param internalStandards the internal standards, unique by name
+   * @param standards the calibration levels, unique by name
+   * @param blanks blank handling
+   * @param identification how injections get their roles
+   * @param dilution where dilution factors come from
+   * @param limits which limits results use
+   * @param qc the QC plan and acceptance limits
+   * @param reporting how results are written
+   */
+  public Method {
+    analytes = List.copyOf(analytes);
+    internalStandards = List.copyOf(internalStandards);
+    standards = List.copyOf(standards);
+  }
+
+  /**
+   * Finds an analyte line by its key.
+   *
+   * @param key the key, as {@link Analyte#key()} gives it
+   * @return the analyte line, or empty
+   */
+  public Optional<Analyte> analyte(String key) {
+    return analytes.stream().filter(a -> a.key().equals(key)).findFirst();
+  }
+
+  /**
+   * Finds a standard level by name.
+   *
+   * @param name the level's name
+   * @return the level, or empty
+   */
+  public Optional<StandardLevel> level(String name) {
+    return standards.stream().filter(l -> l.name().equals(name)).findFirst();
+  }
+
+  /**
+   * Finds an internal standard by name.
+   *
+   * @param name its name
+   * @return the internal standard, or empty
+   */
+  public Optional<InternalStandard> internalStandard(String name) {
+    return internalStandards.stream().filter(s -> s.name().equals(name)).findFirst();
+  }
+
+  /**
+   * The levels that hold an analyte, in file order.
+   *
+   * @param analyteName the analyte name
+   * @return the levels with a concentration for it
+   */
+  public List<StandardLevel> levelsOf(String analyteName) {
+    return standards.stream().filter(l -> l.concentrations().containsKey(analyteName)).toList();
+  }
+}

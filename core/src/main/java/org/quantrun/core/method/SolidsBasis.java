@@ -1,0 +1,21 @@
+package org.quantrun.core.method;
+
+/** The basis of mass-based results. */
+public enum SolidsBasis implements MethodToken {
+  /** Per mass of sample as received (the default). */
+  AS_RECEIVED("as-received"),
+  /** Per mass of dry sample: the as-received result divided by the solids fraction. */
+  DRY_WEIGHT("dry-weight");
+
+  private final String token;
+
+  SolidsBasis(String token) {
+    this.token = token;
+  }
+
+  /** {@inheritDoc} */
+  @Override
+  public String token() {
+    return token;
+  }
+}
