@@ -14,11 +14,11 @@ import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
+import org.quantrun.core.calibration.LimitSource;
 import org.quantrun.core.method.Analyte;
 import org.quantrun.core.method.CheckStandard;
 import org.quantrun.core.method.DilutionScheme;
 import org.quantrun.core.method.Identification;
-import org.quantrun.core.method.LimitSource;
 import org.quantrun.core.method.Method;
 import org.quantrun.core.method.MethodException;
 import org.quantrun.core.method.MethodLoader;
@@ -27,10 +27,10 @@ import org.quantrun.core.method.PairRule;
 import org.quantrun.core.method.QcPlan;
 import org.quantrun.core.method.ReportingRules;
 import org.quantrun.core.method.StandardLevel;
-import org.quantrun.core.method.Window;
-import picocli.CommandLine;
+import org.quantrun.core.qc.Window;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Parameters;
+import picocli.CommandLine;
 
 /**
  * {@code quantrun check METHOD.yaml}: loads and validates a method file, then prints a summary of

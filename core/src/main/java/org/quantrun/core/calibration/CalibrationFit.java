@@ -125,7 +125,7 @@ public final class CalibrationFit {
     DecompositionSolver solver = qr.getSolver();
     if (!solver.isNonSingular()) {
       throw new CalibrationException(
-          "the calibration points do not determine a " + curve.label()
+          "the calibration points do not determine a " + curve.token()
               + " curve (the concentrations are too few or too close together)");
     }
     this.beta = solver.solve(new ArrayRealVector(b, false)).toArray();
@@ -271,7 +271,7 @@ public final class CalibrationFit {
     int p = curve.parameterCount();
     if (pts.size() < p) {
       throw new CalibrationException(
-          "a " + curve.label() + " curve needs at least " + p + " calibration point" + (p > 1 ? "s" : "")
+          "a " + curve.token() + " curve needs at least " + p + " calibration point" + (p > 1 ? "s" : "")
               + ", got " + pts.size());
     }
     long distinct = pts.stream().mapToDouble(CalibrationPoint::x).distinct().count();
@@ -285,19 +285,19 @@ public final class CalibrationFit {
           (distinct == 1
                   ? "every calibration point has the same concentration x = " + pts.get(0).x()
                   : "the calibration points have only " + distinct + " different concentrations")
-              + ": a " + curve.label() + " curve needs at least " + p + " different concentrations");
+              + ": a " + curve.token() + " curve needs at least " + p + " different concentrations");
     }
     for (int i = 0; i < pts.size(); i++) {
       CalibrationPoint pt = pts.get(i);
       String where = "calibration point " + (i + 1);
       if (w.usesX() && !(pt.x() > 0)) {
         throw new CalibrationException(
-            where + " (x = " + pt.x() + "): weighting " + w.label() + " needs x > 0; "
+            where + " (x = " + pt.x() + "): weighting " + w.token() + " needs x > 0; "
                 + "subtract the blank instead of fitting it as a point, or choose weighting 1/s2 or none");
       }
       if (w.usesY() && !(pt.y() > 0)) {
         throw new CalibrationException(
-            where + " (y = " + pt.y() + "): weighting " + w.label() + " needs a positive signal; "
+            where + " (y = " + pt.y() + "): weighting " + w.token() + " needs a positive signal; "
                 + "remove the point, or choose weighting 1/x2, 1/s2 or none");
       }
       if (w.needsSd()) {
@@ -751,7 +751,7 @@ public final class CalibrationFit {
 
   @Override
   public String toString() {
-    return "CalibrationFit[" + curve().label() + ", " + weighting().label() + ", n=" + n
+    return "CalibrationFit[" + curve().token() + ", " + weighting().token() + ", n=" + n
         + ", coefficients=" + Arrays.toString(coefficients()) + ", r2=" + r2 + "]";
   }
 }

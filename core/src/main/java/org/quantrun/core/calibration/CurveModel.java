@@ -3,6 +3,7 @@ package org.quantrun.core.calibration;
 import java.util.Arrays;
 import java.util.Locale;
 import java.util.stream.Collectors;
+import org.quantrun.core.Token;
 
 /**
  * The calibration curve: how the signal y depends on the concentration x.
@@ -10,7 +11,7 @@ import java.util.stream.Collectors;
  * <p>Each model is a polynomial in x; {@link #powers()} lists the powers of x it has, in the order
  * its coefficients are reported (c0, c1, c2 are the coefficients of x^0, x^1, x^2).
  */
-public enum CurveModel {
+public enum CurveModel implements Token {
   /** Straight line with intercept: y = c0 + c1 x; two parameters. */
   LINEAR("linear", 0, 1),
   /** Straight line through the origin: y = c1 x; one parameter (single-point calibration is its n = 1 case). */
@@ -27,7 +28,8 @@ public enum CurveModel {
   }
 
   /** The name used in method files and on the command line, e.g. {@code through-zero}. */
-  public String label() {
+  @Override
+  public String token() {
     return label;
   }
 
@@ -73,7 +75,7 @@ public enum CurveModel {
 
   /** The known labels, comma separated, for messages. */
   public static String knownLabels() {
-    return Arrays.stream(values()).map(CurveModel::label).collect(Collectors.joining(", "));
+    return Arrays.stream(values()).map(CurveModel::token).collect(Collectors.joining(", "));
   }
 
   @Override

@@ -92,6 +92,6 @@ public final class DetectionLimits {
     }
     double sd = new StandardDeviation(true).evaluate(blankSignals);
     double b = Math.abs(slope);
-    return new LimitEstimate(BLANK_LOD_FACTOR * sd / b, LOQ_FACTOR * sd / b, sd, LimitSource.BLANK_REPLICATES);
+    return new LimitEstimate(BLANK_LOD_FACTOR * sd / b, LOQ_FACTOR * sd / b, sd, LimitSource.RUN_BLANKS);
   }
 }

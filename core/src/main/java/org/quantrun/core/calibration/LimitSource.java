@@ -1,11 +1,13 @@
 package org.quantrun.core.calibration;
 
+import org.quantrun.core.Token;
+
 /** Where a detection or quantitation limit came from. */
-public enum LimitSource {
+public enum LimitSource implements Token {
   /** The method's validated per-analyte limits (MDL, reporting limit). */
   METHOD("method"),
-  /** Replicates of the blank measured in the run: 3 and 10 s_blank / slope. */
-  BLANK_REPLICATES("blank-replicates"),
+  /** Replicate blanks measured in the run: 3 and 10 s_blank / slope. */
+  RUN_BLANKS("run-blanks"),
   /** The run's calibration: 3.3 and 10 s0 / slope at zero. */
   CALIBRATION("calibration");
 
@@ -16,7 +18,8 @@ public enum LimitSource {
   }
 
   /** The name used in output files, e.g. {@code blank-replicates}. */
-  public String label() {
+  @Override
+  public String token() {
     return label;
   }
 

@@ -2,6 +2,7 @@ package org.quantrun.core.calibration;
 
 import java.util.Arrays;
 import java.util.stream.Collectors;
+import org.quantrun.core.Token;
 
 /**
  * How the calibration points are weighted in the least-squares fit.
@@ -9,7 +10,7 @@ import java.util.stream.Collectors;
  * <p>Weights are always normalised so that they sum to the number of points n; the coefficients do
  * not depend on the normalisation, the weighted s_y/x does.
  */
-public enum Weighting {
+public enum Weighting implements Token {
   /** Ordinary least squares: every point counts the same. */
   NONE("none"),
   /** w = 1/x: signal variance proportional to concentration. */
@@ -30,7 +31,8 @@ public enum Weighting {
   }
 
   /** The name used in method files and on the command line, e.g. {@code 1/x2}. */
-  public String label() {
+  @Override
+  public String token() {
     return label;
   }
 
@@ -88,7 +90,7 @@ public enum Weighting {
 
   /** The known labels, comma separated, for messages. */
   public static String knownLabels() {
-    return Arrays.stream(values()).map(Weighting::label).collect(Collectors.joining(", "));
+    return Arrays.stream(values()).map(Weighting::token).collect(Collectors.joining(", "));
   }
 
   @Override

@@ -1,6 +1,8 @@
 package org.quantrun.core.method;
 
 import java.util.Optional;
+import org.quantrun.core.calibration.CurveModel;
+import org.quantrun.core.calibration.Weighting;
 
 /**
  * One analyte line: an element (or other analyte) measured at one emission line or one mass.
@@ -24,7 +26,7 @@ public record Analyte(
     Optional<String> line,
     Optional<Integer> mass,
     ConcentrationUnit unit,
-    CurveType curve,
+    CurveModel curve,
     Weighting weighting,
     FitPoints fitPoints,
     Optional<String> internalStandard,

@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** How a result below the detection limit is written. */
-public enum BelowLodStyle implements MethodToken {
+public enum BelowLodStyle implements Token {
   /** As a less-than the detection limit times the dilution factor, e.g. < 0.50 (the default). */
   LESS_THAN_LOD("less-than-lod"),
   /** As its rounded value, flagged below-lod. */

@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** How a result between the detection and the quantification limit is written. */
-public enum BetweenLodLoqStyle implements MethodToken {
+public enum BetweenLodLoqStyle implements Token {
   /** As its value, flagged estimated (the default). */
   VALUE_ESTIMATED("value-estimated"),
   /** As its value with no flag. */

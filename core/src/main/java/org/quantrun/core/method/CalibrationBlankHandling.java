@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** What the calibration blank does to the signals of an analyte. */
-public enum CalibrationBlankHandling implements MethodToken {
+public enum CalibrationBlankHandling implements Token {
   /** The mean calibration-blank signal is subtracted from every signal; the blank is not a fit point (the default). */
   SUBTRACT("subtract"),
   /** The calibration blank is fitted as the point at concentration 0. */

@@ -3,6 +3,7 @@ package org.quantrun.core.method;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.quantrun.core.qc.Window;
 
 /**
  * A check standard with known values (ICV, CCV, low-level check, LCS): true values per analyte

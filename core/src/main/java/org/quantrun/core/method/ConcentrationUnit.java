@@ -2,13 +2,14 @@ package org.quantrun.core.method;
 
 import java.util.List;
 import java.util.Optional;
+import org.quantrun.core.Token;
 
 /**
  * A concentration unit the method file may name: amount per volume of solution (what the
  * instrument is calibrated in) or amount per mass of sample (what a prep sheet turns results
  * into). {@code u} stands for micro; {@code µ} is accepted as a spelling of it.
  */
-public enum ConcentrationUnit implements MethodToken {
+public enum ConcentrationUnit implements Token {
   /** Nanograms per litre. */
   NG_PER_L("ng/L", Dimension.PER_VOLUME, 1e-3),
   /** Micrograms per litre. */

@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** Which points of the standards feed a calibration fit. */
-public enum FitPoints implements MethodToken {
+public enum FitPoints implements Token {
   /** One point per standard injection: the mean of its readings (the default). */
   INJECTION_MEANS("injection-means"),
   /** Every individual reading of every standard injection (degrees of freedom are then optimistic). */

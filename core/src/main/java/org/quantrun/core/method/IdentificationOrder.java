@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** Which source of sample identification wins when both give a role. */
-public enum IdentificationOrder implements MethodToken {
+public enum IdentificationOrder implements Token {
   /** The first matching ID rule decides; the type column only when no rule matches (the default). */
   RULES_FIRST("rules-first"),
   /** A mapped type-column value decides; ID rules only when the column gives none. */

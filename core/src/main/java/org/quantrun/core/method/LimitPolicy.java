@@ -1,6 +1,7 @@
 package org.quantrun.core.method;
 
 import java.util.List;
+import org.quantrun.core.calibration.LimitSource;
 
 /**
  * Which limits results use, and how run-made limits are computed. The sources are tried in

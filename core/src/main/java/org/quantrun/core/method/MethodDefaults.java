@@ -1,6 +1,10 @@
 package org.quantrun.core.method;
 
 import java.util.List;
+import org.quantrun.core.calibration.CurveModel;
+import org.quantrun.core.calibration.LimitSource;
+import org.quantrun.core.calibration.Weighting;
+import org.quantrun.core.qc.Window;
 
 /**
  * The values the loader fills in for keys a method leaves out. Conventions are the ones quantrun
@@ -11,7 +15,7 @@ public final class MethodDefaults {
   private MethodDefaults() {}
 
   /** Curve of an analyte line that names none. */
-  public static final CurveType CURVE = CurveType.LINEAR;
+  public static final CurveModel CURVE = CurveModel.LINEAR;
   /** Weighting of an analyte line that names none. */
   public static final Weighting WEIGHTING = Weighting.NONE;
   /** Fit points: one per standard injection (its reading mean). */

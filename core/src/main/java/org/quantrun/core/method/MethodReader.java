@@ -13,7 +13,11 @@ import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.regex.PatternSyntaxException;
+import org.quantrun.core.calibration.CurveModel;
+import org.quantrun.core.calibration.LimitSource;
+import org.quantrun.core.calibration.Weighting;
 import org.quantrun.core.method.YamlMap.Bound;
+import org.quantrun.core.qc.Window;
 import org.yaml.snakeyaml.nodes.Node;
 
 /**
@@ -207,7 +211,7 @@ final class MethodReader {
         p.at(path + ".mass", "an analyte line has a line or a mass, not both", "only one of line, mass");
       }
       ConcentrationUnit unit = m.has("unit") ? m.unit("unit", PER_VOLUME).orElse(defaultUnit) : defaultUnit;
-      CurveType curve = m.token("curve", CurveType.class, MethodDefaults.CURVE);
+      CurveModel curve = m.token("curve", CurveModel.class, MethodDefaults.CURVE);
       Weighting weighting = m.token("weighting", Weighting.class, MethodDefaults.WEIGHTING);
       FitPoints fit = m.token("fit-points", FitPoints.class, MethodDefaults.FIT_POINTS);
       Optional<String> is = m.text("internal-standard");

@@ -1,6 +1,7 @@
 package org.quantrun.core.method;
 
 import java.util.Optional;
+import org.quantrun.core.qc.Window;
 
 /**
  * Every QC check of the method and its acceptance limits. Values are the lab's: the defaults

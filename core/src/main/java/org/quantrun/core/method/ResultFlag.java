@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** The flags quantrun puts on a result; the method may map each to the lab's own qualifier code. */
-public enum ResultFlag implements MethodToken {
+public enum ResultFlag implements Token {
   /** Below the detection limit. */
   BELOW_LOD("below-lod"),
   /** Between the detection and the quantification limit. */

@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** How reported values are rounded to their significant figures. */
-public enum RoundingRule implements MethodToken {
+public enum RoundingRule implements Token {
   /** Round half to even (the default). */
   HALF_EVEN("half-even"),
   /** Round half away from zero. */

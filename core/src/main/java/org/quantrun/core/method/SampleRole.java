@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** The part an injection plays in a run. */
-public enum SampleRole implements MethodToken {
+public enum SampleRole implements Token {
   /** The calibration blank (concentration 0). */
   CALIBRATION_BLANK("calibration-blank"),
   /** A calibration standard of a named level. */

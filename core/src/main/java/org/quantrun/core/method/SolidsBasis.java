@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** The basis of mass-based results. */
-public enum SolidsBasis implements MethodToken {
+public enum SolidsBasis implements Token {
   /** Per mass of sample as received (the default). */
   AS_RECEIVED("as-received"),
   /** Per mass of dry sample: the as-received result divided by the solids fraction. */

@@ -2,6 +2,7 @@ package org.quantrun.core.method;
 
 import java.util.List;
 import java.util.Map;
+import org.quantrun.core.qc.Window;
 
 /**
  * The matrix spike (and spike duplicate): recovery = (spiked - unspiked) / added * 100, not

@@ -1,7 +1,9 @@
 package org.quantrun.core.method;
 
+import org.quantrun.core.Token;
+
 /** What happens to an injection that no identification source recognises. */
-public enum UnmatchedPolicy implements MethodToken {
+public enum UnmatchedPolicy implements Token {
   /** It is taken as a real sample (the default). */
   SAMPLE("sample"),
   /** The run is refused with a message naming the injection. */

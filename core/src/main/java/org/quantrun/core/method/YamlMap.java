@@ -9,6 +9,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.stream.Collectors;
+import org.quantrun.core.Token;
 import org.yaml.snakeyaml.nodes.MappingNode;
 import org.yaml.snakeyaml.nodes.Node;
 import org.yaml.snakeyaml.nodes.NodeTuple;
@@ -183,11 +184,11 @@ final class YamlMap {
     return fallback;
   }
 
-  <E extends Enum<E> & MethodToken> Optional<E> token(String key, Class<E> type) {
+  <E extends Enum<E> & Token> Optional<E> token(String key, Class<E> type) {
     return node(key).flatMap(n -> token(n, join(key), type, problems));
   }
 
-  <E extends Enum<E> & MethodToken> E token(String key, Class<E> type, E fallback) {
+  <E extends Enum<E> & Token> E token(String key, Class<E> type, E fallback) {
     return token(key, type).orElse(fallback);
   }
 
@@ -342,8 +343,8 @@ final class YamlMap {
     }
   }
 
-  static <E extends Enum<E> & MethodToken> Optional<E> token(Node n, String path, Class<E> type, Problems problems) {
-    List<String> words = Arrays.stream(type.getEnumConstants()).map(MethodToken::token).toList();
+  static <E extends Enum<E> & Token> Optional<E> token(Node n, String path, Class<E> type, Problems problems) {
+    List<String> words = Arrays.stream(type.getEnumConstants()).map(Token::token).toList();
     String expected = "one of: " + String.join(", ", words);
     Optional<ScalarNode> s = scalar(n, path, expected, problems);
     if (s.isEmpty()) {

@@ -1,7 +1,9 @@
 package org.quantrun.core.qc;
 
+import org.quantrun.core.Token;
+
 /** The outcome of one QC check. */
-public enum Verdict {
+public enum Verdict implements Token {
   /** The check was judged and lies within its window. */
   PASSED("passed"),
   /** The check was judged and lies outside its window. */
@@ -16,7 +18,8 @@ public enum Verdict {
   }
 
   /** The word used in output files: {@code passed}, {@code failed}, {@code not evaluated}. */
-  public String label() {
+  @Override
+  public String token() {
     return label;
   }
 

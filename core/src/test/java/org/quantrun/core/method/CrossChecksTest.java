@@ -10,6 +10,7 @@ import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.quantrun.core.calibration.CurveModel;
 
 /**
  * More rules between keys and sections, each shown by one change to the base method. The rules
@@ -92,6 +93,6 @@ class CrossChecksTest {
   void singlePointThroughZero() throws MethodException {
     String text = BrokenVariantsTest.apply(List.of("curve: linear", "curve: through-zero", "weighting: 1/x", "weighting: none",
         "{Pb: 50, Cd: 10}", "{Cd: 10}", "{Pb: 200, Cd: 40}", "{Cd: 40}", "from-level: S2", "from-level: S1"));
-    assertEquals(CurveType.THROUGH_ZERO, MethodLoader.load(text, "m.yaml").analytes().get(0).curve());
+    assertEquals(CurveModel.THROUGH_ZERO, MethodLoader.load(text, "m.yaml").analytes().get(0).curve());
   }
 }

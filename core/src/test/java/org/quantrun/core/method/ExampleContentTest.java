@@ -8,6 +8,10 @@ import java.util.Optional;
 import java.util.regex.Matcher;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
+import org.quantrun.core.calibration.CurveModel;
+import org.quantrun.core.calibration.LimitSource;
+import org.quantrun.core.calibration.Weighting;
+import org.quantrun.core.qc.Window;
 
 /** The example methods load into the records their comments describe. */
 class ExampleContentTest {
@@ -34,7 +38,7 @@ class ExampleContentTest {
     Method m = load("drinking-water-trace-metals.yaml");
     assertTrue(m.analytes().size() >= 12);
     assertTrue(m.analytes().stream().allMatch(a -> a.weighting() != Weighting.NONE), "every fit weighted");
-    assertEquals(CurveType.QUADRATIC, m.analyte("Zn 213.857").orElseThrow().curve());
+    assertEquals(CurveModel.QUADRATIC, m.analyte("Zn 213.857").orElseThrow().curve());
     assertEquals(Weighting.INVERSE_X_SQUARED, m.analyte("Pb 220.353").orElseThrow().weighting());
     assertEquals(Optional.empty(), m.level("S1").orElseThrow().concentration("Al"), "Al is absent from S1");
     assertEquals(4, m.levelsOf("Al").size());
@@ -108,7 +112,7 @@ class ExampleContentTest {
     Analyte pb = m.analytes().get(0);
     // common practice: one fit point per injection mean, blank subtracted and not a fit point
     assertEquals(FitPoints.INJECTION_MEANS, pb.fitPoints());
-    assertEquals(CurveType.LINEAR, pb.curve());
+    assertEquals(CurveModel.LINEAR, pb.curve());
     assertEquals(Weighting.NONE, pb.weighting());
     assertEquals(CalibrationBlankHandling.SUBTRACT, m.blanks().calibrationBlank());
     assertEquals(MethodBlankHandling.REPORT_ONLY, m.blanks().methodBlank());

@@ -26,11 +26,11 @@ import org.quantrun.runner.InputException;
 import org.quantrun.runner.Main;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.ITypeConverter;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.TypeConversionException;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code quantrun calibrate POINTS.csv}: fits one calibration and reads unknowns off it. */
 @Command(
@@ -118,8 +118,8 @@ public final class CalibrateCommand implements Callable<Integer> {
   static String json(CalibrationFit fit, Optional<LimitEstimate> limits, List<InversePrediction> predictions) {
     ObjectMapper mapper = new ObjectMapper();
     ObjectNode root = mapper.createObjectNode();
-    root.put("curve", fit.curve().label());
-    root.put("weighting", fit.weighting().label());
+    root.put("curve", fit.curve().token());
+    root.put("weighting", fit.weighting().token());
     root.put("n", fit.n());
     root.put("dof", fit.dof());
     ObjectNode coefficients = root.putObject("coefficients");
@@ -164,7 +164,7 @@ public final class CalibrateCommand implements Callable<Integer> {
     StringBuilder b = new StringBuilder();
     String nl = System.lineSeparator();
     b.append(String.format(Locale.ROOT, "Calibration: %s, weighting %s, n = %d, dof = %d%n",
-        fit.curve().label(), fit.weighting().label(), fit.n(), fit.dof()));
+        fit.curve().token(), fit.weighting().token(), fit.n(), fit.dof()));
     b.append(nl).append(String.format(Locale.ROOT, "  %-12s %16s %16s%n", "coefficient", "value", "std. error"));
     for (int power : fit.curve().powers()) {
       b.append(String.format(Locale.ROOT, "  %-12s %16s %16s%n",
