@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
     mixinStandardHelpOptions = true,
     versionProvider = Main.Version.class,
     description = "Turns the raw export of an instrument run into reportable, QC-checked concentrations.",
-    subcommands = {CommandLine.HelpCommand.class})
+    subcommands = {CommandLine.HelpCommand.class, org.quantrun.runner.plugins.ImportersCommand.class})
 public final class Main implements Runnable {
 
   /** Exit code for a usage or input-data error. */

@@ -254,7 +254,8 @@ public final class ImportSettings {
 
   /**
    * Fixed-width context record patterns: a line matching one sets the injection fields named by
-   * its groups ({@code sequence}, {@code sample_id}, {@code sample_type}, {@code timestamp}) for
+   * its groups ({@code sequence}, {@code sampleId}, {@code sampleType}, {@code timestamp}; Java group
+   * names allow letters and digits only) for
    * the data records after it.
    *
    * @return the patterns (default none)
