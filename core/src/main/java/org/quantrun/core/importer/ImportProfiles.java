@@ -36,6 +36,9 @@ public final class ImportProfiles {
   /** Deepest nesting accepted. */
   public static final int MAX_DEPTH = 10;
 
+  private static final java.util.Set<Tag> STANDARD_TAGS =
+      java.util.Set.of(Tag.MAP, Tag.SEQ, Tag.STR, Tag.INT, Tag.BOOL, Tag.NULL, Tag.FLOAT);
+
   private ImportProfiles() {}
 
   /**
@@ -96,6 +99,10 @@ public final class ImportProfiles {
   private static Object plain(Node node, String path, Map<String, SourcePosition> positions, String source)
       throws ImportException {
     positions.putIfAbsent(path, position(node.getStartMark()));
+    if (!STANDARD_TAGS.contains(node.getTag())) {
+      throw new ImportException(source, position(node.getStartMark()),
+          (path.isEmpty() ? "" : path + ": ") + "YAML tags are not allowed (found " + node.getTag().getValue() + ")");
+    }
     if (node instanceof MappingNode m) {
       Map<String, Object> out = new LinkedHashMap<>();
       for (NodeTuple t : m.getValue()) {
@@ -103,6 +110,9 @@ public final class ImportProfiles {
           throw new ImportException(source, position(t.getKeyNode().getStartMark()), path + ": keys must be plain texts");
         }
         String childPath = path.isEmpty() ? k.getValue() : path + "." + k.getValue();
+        if (out.containsKey(k.getValue())) {
+          throw new ImportException(source, position(k.getStartMark()), childPath + ": duplicate key");
+        }
         positions.put(childPath, position(k.getStartMark()));
         out.put(k.getValue(), plain(t.getValueNode(), childPath, positions, source));
       }

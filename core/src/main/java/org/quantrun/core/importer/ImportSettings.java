@@ -269,6 +269,31 @@ public final class ImportSettings {
     return dataRecordPattern;
   }
 
+  /**
+   * Whether a row (its text) is to be skipped by one of the {@linkplain #skipPatterns() skip rules}.
+   *
+   * @param rowText the row's text
+   * @return {@code true} to skip it
+   */
+  public boolean skips(String rowText) {
+    for (Pattern p : skipPatterns) {
+      if (p.matcher(rowText).find()) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /**
+   * Whether a row (its text) ends the table by the {@linkplain #endPattern() end rule}.
+   *
+   * @param rowText the row's text
+   * @return {@code true} when it and all rows after it are footer
+   */
+  public boolean ends(String rowText) {
+    return endPattern.isPresent() && endPattern.get().matcher(rowText).find();
+  }
+
   /** @return free options for third-party importers */
   public Map<String, String> options() {
     return options;

@@ -121,10 +121,10 @@ public final class DelimitedImporter implements RunImporter {
         }
         if (patterns) {
           String raw = String.join(joiner, cells);
-          if (settings.endPattern().isPresent() && settings.endPattern().get().matcher(raw).find()) {
+          if (settings.ends(raw)) {
             break;
           }
-          if (skip(settings, raw)) {
+          if (settings.skips(raw)) {
             continue;
           }
         }
@@ -137,15 +137,6 @@ public final class DelimitedImporter implements RunImporter {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "is empty");
     }
     return table.finish();
-  }
-
-  private static boolean skip(ImportSettings settings, String raw) {
-    for (Pattern p : settings.skipPatterns()) {
-      if (p.matcher(raw).find()) {
-        return true;
-      }
-    }
-    return false;
   }
 
   private static char sniff(BufferedReader reader, ImportSettings settings, String sourceName)

@@ -108,7 +108,7 @@ public final class FixedWidthImporter implements RunImporter {
       while ((line = reader.readLine()) != null) {
         lineNo++;
         seen++;
-        if (table.hasHeader() && settings.endPattern().isPresent() && settings.endPattern().get().matcher(line).find()) {
+        if (table.hasHeader() && settings.ends(line)) {
           break;
         }
         if (context(settings, line, ctx)) {
@@ -135,7 +135,7 @@ public final class FixedWidthImporter implements RunImporter {
           pendingLine = lineNo;
           continue;
         }
-        if (line.isBlank() || line.strip().equals(headerText) || UNDERLINE.matcher(line).matches() || skip(settings, line)) {
+        if (line.isBlank() || line.strip().equals(headerText) || UNDERLINE.matcher(line).matches() || settings.skips(line)) {
           continue;
         }
         if (settings.dataRecordPattern().isPresent() && !settings.dataRecordPattern().get().matcher(line).find()) {
@@ -150,15 +150,6 @@ public final class FixedWidthImporter implements RunImporter {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "is empty");
     }
     return table.finish();
-  }
-
-  private static boolean skip(ImportSettings settings, String line) {
-    for (Pattern p : settings.skipPatterns()) {
-      if (p.matcher(line).find()) {
-        return true;
-      }
-    }
-    return false;
   }
 
   private static boolean context(ImportSettings settings, String line, Context ctx) {
