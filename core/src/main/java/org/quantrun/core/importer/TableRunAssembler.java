@@ -38,7 +38,6 @@ public final class TableRunAssembler {
   private int headerLine;
   private List<String> headerNames = List.of();
   private int[] headerColumns = new int[0];
-  private final Map<String, Integer> canonical = new HashMap<>();
   private final List<Integer> replicateColumns = new ArrayList<>();
   private final List<WideColumn> wideColumns = new ArrayList<>();
 
@@ -199,16 +198,51 @@ public final class TableRunAssembler {
       throw new ImportException(sourceName, new SourcePosition(line, firstDuplicateColumn), duplicates.get(0));
     }
     hasHeader = true;
+    colSample = index(canon, ColumnNames.SAMPLE_ID);
+    colSeq = index(canon, ColumnNames.SEQUENCE);
+    colType = index(canon, ColumnNames.SAMPLE_TYPE);
+    colTime = index(canon, ColumnNames.TIMESTAMP);
+    colUnit = index(canon, ColumnNames.UNIT);
+    colRemark = index(canon, ColumnNames.REMARK);
+    colRep = index(canon, ColumnNames.REPLICATE);
+    colAnalyte = index(canon, ColumnNames.ANALYTE);
+    colLine = index(canon, ColumnNames.LINE);
+    colAnalyteLine = index(canon, ColumnNames.ANALYTE_LINE);
+    colReading = index(canon, ColumnNames.READING);
+    colMean = index(canon, ColumnNames.MEAN);
+    colSd = index(canon, ColumnNames.SD);
+    replicateIndexes = reps.stream().mapToInt(Integer::intValue).toArray();
     headerLine = line;
     headerNames = List.copyOf(names);
     headerColumns = columns.clone();
-    canonical.putAll(canon);
     replicateColumns.addAll(reps);
     wideColumns.addAll(wide);
     return true;
   }
 
   private int firstDuplicateColumn;
+  private int colSample = -1;
+  private int colSeq = -1;
+  private int colType = -1;
+  private int colTime = -1;
+  private int colUnit = -1;
+  private int colRemark = -1;
+  private int colRep = -1;
+  private int colAnalyte = -1;
+  private int colLine = -1;
+  private int colAnalyteLine = -1;
+  private int colReading = -1;
+  private int colMean = -1;
+  private int colSd = -1;
+  private int[] replicateIndexes = new int[0];
+  private String lastAnalyte = "";
+  private String lastLineText = "";
+  private AnalyteLine lastAnalyteLine;
+
+  private static int index(Map<String, Integer> canon, String name) {
+    Integer i = canon.get(name);
+    return i == null ? -1 : i;
+  }
 
   private String duplicateText(List<String> names, int[] columns, int first, int second, String field) {
     if (firstDuplicateColumn == 0) {
@@ -311,8 +345,8 @@ public final class TableRunAssembler {
     return index < headerColumns.length ? headerColumns[index] : index + 1;
   }
 
-  private static String cell(List<String> cells, Integer index) {
-    if (index == null || index >= cells.size()) {
+  private static String cell(List<String> cells, int index) {
+    if (index < 0 || index >= cells.size()) {
       return "";
     }
     String c = cells.get(index);
@@ -361,48 +395,41 @@ public final class TableRunAssembler {
     if (blank) {
       return;
     }
-    Integer sampleCol = canonical.get(ColumnNames.SAMPLE_ID);
-    String sampleId = sampleCol != null ? cell(cells, sampleCol).strip() : contextSampleId.orElse("").strip();
+    String sampleId = colSample >= 0 ? cell(cells, colSample).strip() : contextSampleId.orElse("").strip();
     if (sampleId.isEmpty()) {
-      throw new ImportException(sourceName, new SourcePosition(line, sampleCol == null ? 0 : column(sampleCol)),
+      throw new ImportException(sourceName, new SourcePosition(line, colSample < 0 ? 0 : column(colSample)),
           "sample id is empty");
     }
-    Integer seqCol = canonical.get(ColumnNames.SEQUENCE);
-    Optional<String> seqText = seqCol != null ? nonBlank(cell(cells, seqCol)) : contextSequence.map(String::strip);
-    String timestamp = canonical.containsKey(ColumnNames.TIMESTAMP)
-        ? cell(cells, canonical.get(ColumnNames.TIMESTAMP)).strip() : contextTimestamp.orElse("").strip();
-    String type = canonical.containsKey(ColumnNames.SAMPLE_TYPE)
-        ? cell(cells, canonical.get(ColumnNames.SAMPLE_TYPE)).strip() : contextType.orElse("").strip();
-    Integer repCol = canonical.get(ColumnNames.REPLICATE);
+    Optional<String> seqText = colSeq >= 0 ? nonBlank(cell(cells, colSeq)) : contextSequence.map(String::strip);
+    String timestamp = colTime >= 0 ? cell(cells, colTime).strip() : contextTimestamp.orElse("").strip();
     String key;
     boolean restart = false;
     if (seqText.isPresent()) {
       key = seqText.get();
-    } else if (repCol != null) {
+    } else if (colRep >= 0) {
       // a row per replicate: the time stamp changes from replicate to replicate; a replicate
       // number that does not rise starts a new injection of the same sample
       key = sampleId;
       if (settings.layout() == Layout.WIDE) {
-        int rep = replicateNumber(cell(cells, repCol), line, column(repCol));
+        int rep = replicateNumber(cell(cells, colRep), line, column(colRep));
         restart = rep <= lastReplicate;
         lastReplicate = rep;
       }
     } else {
-      key = sampleId + '\u0001' + timestamp;
+      key = timestamp.isEmpty() ? sampleId : sampleId + '\u0001' + timestamp;
     }
     if (current == null || restart || !key.equals(currentKey)) {
       closeInjection();
       int sequence = injections.size() + 1;
       if (seqText.isPresent()) {
-        sequence = sequence(seqText.get(), line, seqCol == null ? 0 : column(seqCol));
+        sequence = sequence(seqText.get(), line, colSeq < 0 ? 0 : column(colSeq));
       }
+      String type = colType >= 0 ? cell(cells, colType).strip() : contextType.orElse("").strip();
       current = new InjectionBuilder(sequence, sampleId, nonBlank(type), nonBlank(timestamp), SourcePosition.ofLine(line));
       currentKey = key;
     }
-    Optional<String> rowUnit = canonical.containsKey(ColumnNames.UNIT)
-        ? nonBlank(cell(cells, canonical.get(ColumnNames.UNIT))) : Optional.empty();
-    Optional<String> remark = canonical.containsKey(ColumnNames.REMARK)
-        ? nonBlank(cell(cells, canonical.get(ColumnNames.REMARK))) : Optional.empty();
+    String rowUnit = colUnit >= 0 ? cell(cells, colUnit) : "";
+    String remark = colRemark >= 0 ? cell(cells, colRemark) : "";
     if (settings.layout() == Layout.LONG) {
       longRow(cells, line, rowUnit, remark);
     } else {
@@ -410,47 +437,40 @@ public final class TableRunAssembler {
     }
   }
 
-  private void longRow(List<String> cells, int line, Optional<String> unit, Optional<String> remark)
-      throws ImportException {
+  private void longRow(List<String> cells, int line, String unit, String remark) throws ImportException {
     AnalyteLine al;
-    Integer alCol = canonical.get(ColumnNames.ANALYTE);
-    if (alCol != null) {
-      String analyte = cell(cells, alCol).strip();
+    int alCol = colAnalyte >= 0 ? colAnalyte : colAnalyteLine;
+    if (colAnalyte >= 0) {
+      String analyte = cell(cells, colAnalyte).strip();
       if (analyte.isEmpty()) {
-        throw new ImportException(sourceName, new SourcePosition(line, column(alCol)), "analyte is empty");
+        throw new ImportException(sourceName, new SourcePosition(line, column(colAnalyte)), "analyte is empty");
       }
-      Integer lineCol = canonical.get(ColumnNames.LINE);
-      al = analyteLine(analyte, lineCol == null ? "" : cell(cells, lineCol).strip());
+      al = analyteLine(analyte, colLine < 0 ? "" : cell(cells, colLine).strip());
     } else {
-      Integer combined = canonical.get(ColumnNames.ANALYTE_LINE);
-      String text = cell(cells, combined).strip();
+      String text = cell(cells, colAnalyteLine).strip();
       if (text.isEmpty()) {
-        throw new ImportException(sourceName, new SourcePosition(line, column(combined)), "analyte line is empty");
+        throw new ImportException(sourceName, new SourcePosition(line, column(colAnalyteLine)), "analyte line is empty");
       }
       Matcher m = ANALYTE_AND_LINE.matcher(text);
       al = m.matches() ? analyteLine(m.group(1), m.group(2)) : analyteLine(text, "");
     }
-    LineBuilder lb = current.line(al, line, column(alCol != null ? alCol : canonical.get(ColumnNames.ANALYTE_LINE)));
-    for (int r : replicateColumns) {
+    LineBuilder lb = current.line(al, line, column(alCol));
+    for (int r : replicateIndexes) {
       lb.replicates.add(values.read(cell(cells, r), name(r), line, column(r)));
     }
-    Integer readingCol = canonical.get(ColumnNames.READING);
-    if (readingCol != null) {
-      lb.replicates.add(values.read(cell(cells, readingCol), name(readingCol), line, column(readingCol)));
+    if (colReading >= 0) {
+      lb.replicates.add(values.read(cell(cells, colReading), name(colReading), line, column(colReading)));
     }
-    Integer meanCol = canonical.get(ColumnNames.MEAN);
-    if (meanCol != null && lb.mean.isEmpty() && !cell(cells, meanCol).isBlank()) {
-      lb.mean = Optional.of(values.read(cell(cells, meanCol), name(meanCol), line, column(meanCol)));
+    if (colMean >= 0 && lb.mean.isEmpty() && !cell(cells, colMean).isBlank()) {
+      lb.mean = Optional.of(values.read(cell(cells, colMean), name(colMean), line, column(colMean)));
     }
-    Integer sdCol = canonical.get(ColumnNames.SD);
-    if (sdCol != null && lb.sd.isEmpty() && !cell(cells, sdCol).isBlank()) {
-      lb.sd = Optional.of(values.read(cell(cells, sdCol), name(sdCol), line, column(sdCol)));
+    if (colSd >= 0 && lb.sd.isEmpty() && !cell(cells, colSd).isBlank()) {
+      lb.sd = Optional.of(values.read(cell(cells, colSd), name(colSd), line, column(colSd)));
     }
     lb.add(unit, remark);
   }
 
-  private void wideRow(List<String> cells, int line, Optional<String> unit, Optional<String> remark)
-      throws ImportException {
+  private void wideRow(List<String> cells, int line, String unit, String remark) throws ImportException {
     for (WideColumn w : wideColumns) {
       String text = cell(cells, w.index());
       LineBuilder lb = current.line(w.analyteLine(), line, column(w.index()));
@@ -469,7 +489,7 @@ public final class TableRunAssembler {
         case IGNORED -> { }
         default -> throw new IllegalStateException();
       }
-      lb.add(w.unit().isPresent() ? w.unit() : unit, remark);
+      lb.add(w.unit().isPresent() ? w.unit().get() : unit, remark);
     }
   }
 
@@ -502,6 +522,16 @@ public final class TableRunAssembler {
   }
 
   private AnalyteLine analyteLine(String analyte, String line) {
+    if (lastAnalyteLine != null && analyte.equals(lastAnalyte) && line.equals(lastLineText)) {
+      return lastAnalyteLine;
+    }
+    lastAnalyte = analyte;
+    lastLineText = line;
+    lastAnalyteLine = analyteLine0(analyte, line);
+    return lastAnalyteLine;
+  }
+
+  private AnalyteLine analyteLine0(String analyte, String line) {
     String k = analyte + '\u0001' + line;
     AnalyteLine al = lineCache.get(k);
     if (al == null) {
@@ -561,7 +591,17 @@ public final class TableRunAssembler {
       this.position = position;
     }
 
+    LineBuilder last;
+
     LineBuilder line(AnalyteLine al, int line, int column) {
+      if (last != null && last.analyteLine == al) {
+        return last;
+      }
+      last = lookup(al, line, column);
+      return last;
+    }
+
+    private LineBuilder lookup(AnalyteLine al, int line, int column) {
       LineBuilder lb = lines.get(al);
       if (lb == null) {
         lb = new LineBuilder(al, new SourcePosition(line, column));
@@ -593,14 +633,17 @@ public final class TableRunAssembler {
       this.position = position;
     }
 
-    void add(Optional<String> u, Optional<String> remark) {
-      if (unit.isEmpty()) {
-        unit = u;
+    void add(String u, String remark) {
+      if (unit.isEmpty() && !u.isBlank()) {
+        unit = Optional.of(u.strip());
       }
-      if (remark.isPresent() && !remarks.contains(remark.get())) {
-        List<String> r = new ArrayList<>(remarks);
-        r.add(remark.get());
-        remarks = r;
+      if (!remark.isBlank()) {
+        String r = remark.strip();
+        if (!remarks.contains(r)) {
+          List<String> all = new ArrayList<>(remarks);
+          all.add(r);
+          remarks = all;
+        }
       }
     }
 

@@ -109,7 +109,7 @@ public final class DelimitedImporter implements RunImporter {
         }
         int line = (int) lineBefore + 1;
         lineBefore = parser.getCurrentLineNumber();
-        List<String> cells = record.toList();
+        List<String> cells = java.util.Arrays.asList(record.values());
         if (!table.hasHeader()) {
           if (++searched > settings.headerSearchLines()) {
             throw table.noHeaderError();
