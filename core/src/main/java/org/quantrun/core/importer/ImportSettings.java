@@ -378,7 +378,7 @@ public final class ImportSettings {
      * @return this builder
      */
     public Builder importer(String id) {
-      if (id == null || id.isBlank()) {
+      if (id.isBlank()) {
         throw new IllegalArgumentException("importer id must not be blank");
       }
       importer = id.strip();
@@ -386,11 +386,17 @@ public final class ImportSettings {
     }
 
     /**
-     * @param cs the charset, or {@code null} to detect it
+     * @param cs the charset
      * @return this builder
      */
     public Builder charset(Charset cs) {
-      charset = Optional.ofNullable(cs);
+      charset = Optional.of(cs);
+      return this;
+    }
+
+    /** @return this builder, with the charset detected (BOM, else UTF-8 if valid, else Windows-1252) */
+    public Builder detectCharset() {
+      charset = Optional.empty();
       return this;
     }
 
@@ -434,14 +440,20 @@ public final class ImportSettings {
     }
 
     /**
-     * @param sep the thousands separator, or {@code null} for none
+     * @param sep the thousands separator
      * @return this builder
      */
-    public Builder groupingSeparator(Character sep) {
-      if (sep != null && (Character.isDigit(sep) || sep == '-' || sep == '+')) {
+    public Builder groupingSeparator(char sep) {
+      if (Character.isDigit(sep) || sep == '-' || sep == '+' || Character.isLetter(sep)) {
         throw new IllegalArgumentException("grouping separator cannot be '" + sep + "'");
       }
-      groupingSeparator = Optional.ofNullable(sep);
+      groupingSeparator = Optional.of(sep);
+      return this;
+    }
+
+    /** @return this builder, with no thousands separator */
+    public Builder noGroupingSeparator() {
+      groupingSeparator = Optional.empty();
       return this;
     }
 
@@ -517,11 +529,17 @@ public final class ImportSettings {
     }
 
     /**
-     * @param p the pattern of the row that ends the table, or {@code null} for none
+     * @param p the pattern of the row that ends the table
      * @return this builder
      */
     public Builder endPattern(Pattern p) {
-      endPattern = Optional.ofNullable(p);
+      endPattern = Optional.of(p);
+      return this;
+    }
+
+    /** @return this builder, with no end rule */
+    public Builder noEndPattern() {
+      endPattern = Optional.empty();
       return this;
     }
 
@@ -586,11 +604,11 @@ public final class ImportSettings {
     }
 
     /**
-     * @param p fixed-width data records pattern, or {@code null} for every other line
+     * @param p fixed-width data records pattern
      * @return this builder
      */
     public Builder dataRecordPattern(Pattern p) {
-      dataRecordPattern = Optional.ofNullable(p);
+      dataRecordPattern = Optional.of(p);
       return this;
     }
 

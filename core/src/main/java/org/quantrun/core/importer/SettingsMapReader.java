@@ -6,6 +6,7 @@ import java.nio.charset.UnsupportedCharsetException;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import java.util.TreeSet;
 import java.util.function.Function;
@@ -42,7 +43,12 @@ final class SettingsMapReader {
         b.importer(text(map, "importer"));
       }
       if (map.containsKey("charset")) {
-        b.charset(charset(text(map, "charset")));
+        Optional<Charset> cs = charset(text(map, "charset"));
+        if (cs.isPresent()) {
+          b.charset(cs.get());
+        } else {
+          b.detectCharset();
+        }
       }
       if (map.containsKey("delimiter")) {
         String d = text(map, "delimiter");
@@ -60,7 +66,11 @@ final class SettingsMapReader {
       }
       if (map.containsKey("grouping_separator")) {
         String g = text(map, "grouping_separator");
-        b.groupingSeparator(g.equalsIgnoreCase("none") ? null : oneChar("grouping_separator", g));
+        if (g.equalsIgnoreCase("none")) {
+          b.noGroupingSeparator();
+        } else {
+          b.groupingSeparator(oneChar("grouping_separator", g));
+        }
       }
       if (map.containsKey("layout")) {
         String l = text(map, "layout").toLowerCase(Locale.ROOT);
@@ -235,12 +245,12 @@ final class SettingsMapReader {
     }
   }
 
-  private Charset charset(String name) throws ImportException {
+  private Optional<Charset> charset(String name) throws ImportException {
     if (name.equalsIgnoreCase("auto")) {
-      return null;
+      return Optional.empty();
     }
     try {
-      return Charset.forName(name);
+      return Optional.of(Charset.forName(name));
     } catch (IllegalCharsetNameException | UnsupportedCharsetException e) {
       throw error("charset", "unknown charset '" + name + "' (e.g. UTF-8, UTF-16, windows-1252, auto)");
     }

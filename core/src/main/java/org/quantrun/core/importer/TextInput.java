@@ -3,12 +3,13 @@ package org.quantrun.core.importer;
 import java.io.BufferedInputStream;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.io.Reader;
 import java.nio.ByteBuffer;
+import java.nio.CharBuffer;
 import java.nio.charset.CharacterCodingException;
 import java.nio.charset.Charset;
 import java.nio.charset.CharsetDecoder;
+import java.nio.charset.CoderResult;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.util.Optional;
@@ -29,7 +30,12 @@ public final class TextInput extends Reader {
   /** Windows-1252, the usual charset of older exports. */
   public static final Charset WINDOWS_1252 = Charset.forName("windows-1252");
 
-  private final Reader in;
+  private final InputStream in;
+  private final CharsetDecoder decoder;
+  private final ByteBuffer bytes = ByteBuffer.allocate(16 * 1024).flip();
+  private boolean endOfInput;
+  private boolean flushed;
+  private boolean decodeError;
   private final Charset charset;
   private final String sourceName;
   private final int maxLineLength;
@@ -37,9 +43,10 @@ public final class TextInput extends Reader {
   private int lineLength;
   private ImportException failure;
 
-  private TextInput(Reader in, Charset charset, String sourceName, int maxLineLength) {
+  private TextInput(InputStream in, CharsetDecoder decoder, String sourceName, int maxLineLength) {
     this.in = in;
-    this.charset = charset;
+    this.decoder = decoder;
+    this.charset = decoder.charset();
     this.sourceName = sourceName;
     this.maxLineLength = maxLineLength;
   }
@@ -85,7 +92,7 @@ public final class TextInput extends Reader {
       CharsetDecoder decoder = decodeAs.newDecoder()
           .onMalformedInput(CodingErrorAction.REPORT)
           .onUnmappableCharacter(CodingErrorAction.REPORT);
-      return new TextInput(new InputStreamReader(buffered, decoder), decodeAs, sourceName, settings.maxLineLength());
+      return new TextInput(buffered, decoder, sourceName, settings.maxLineLength());
     } catch (IOException e) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "cannot be read: " + e.getMessage(), e);
     }
@@ -194,14 +201,6 @@ public final class TextInput extends Reader {
     if (failure != null) {
       return failure;
     }
-    Throwable t = e;
-    while (t.getCause() != null && !(t instanceof CharacterCodingException)) {
-      t = t.getCause();
-    }
-    if (t instanceof CharacterCodingException) {
-      return new ImportException(sourceName, SourcePosition.ofLine(line),
-          "not valid " + charset.name() + " text; set the right charset in the import profile", e);
-    }
     String msg = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
     return new ImportException(sourceName, SourcePosition.ofLine(Math.max(fallbackLine, 0)), "cannot be read: " + msg, e);
   }
@@ -211,7 +210,33 @@ public final class TextInput extends Reader {
     if (failure != null) {
       throw new IOException(failure.getMessage());
     }
-    int n = in.read(buf, off, len);
+    if (len == 0) {
+      return 0;
+    }
+    CharBuffer out = CharBuffer.wrap(buf, off, len);
+    while (out.position() == off) {
+      if (decodeError) {
+        // the characters before the bad bytes have been counted: the line is exact
+        failure = new ImportException(sourceName, SourcePosition.ofLine(line),
+            "not valid " + charset.name() + " text; set the right charset in the import profile");
+        throw new IOException(failure.getMessage());
+      }
+      if (flushed) {
+        return -1;
+      }
+      CoderResult r = decoder.decode(bytes, out, endOfInput);
+      if (r.isError()) {
+        decodeError = true;
+      } else if (r.isUnderflow()) {
+        if (endOfInput) {
+          decoder.flush(out);
+          flushed = true;
+        } else if (out.position() == off) {
+          fill();
+        }
+      }
+    }
+    int n = out.position() - off;
     for (int i = off; i < off + n; i++) {
       char c = buf[i];
       if (c == '\n') {
@@ -233,9 +258,20 @@ public final class TextInput extends Reader {
     return n;
   }
 
+  private void fill() throws IOException {
+    bytes.compact();
+    int n = in.read(bytes.array(), bytes.arrayOffset() + bytes.position(), bytes.remaining());
+    if (n < 0) {
+      endOfInput = true;
+    } else {
+      bytes.position(bytes.position() + n);
+    }
+    bytes.flip();
+  }
+
   @Override
-  public void close() throws IOException {
-    in.close();
+  public void close() {
+    // the caller owns the stream
   }
 
   /** Keeps the caller's stream open when the reader is closed. */

@@ -11,8 +11,11 @@ import org.junit.jupiter.api.Test;
 class ValueReaderTest {
 
   static ValueReader reader(char decimal, Character grouping) {
-    return new ValueReader("run.csv",
-        ImportSettings.DEFAULT.toBuilder().decimalSeparator(decimal).groupingSeparator(grouping).build());
+    ImportSettings.Builder b = ImportSettings.DEFAULT.toBuilder().decimalSeparator(decimal);
+    if (grouping != null) {
+      b.groupingSeparator(grouping);
+    }
+    return new ValueReader("run.csv", b.build());
   }
 
   @Test

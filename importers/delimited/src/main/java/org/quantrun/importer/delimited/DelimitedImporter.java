@@ -75,6 +75,14 @@ public final class DelimitedImporter implements RunImporter {
 
   @Override
   public RawRun read(InputStream in, ImportSettings settings, String sourceName) throws ImportException {
+    if (settings.delimiter().isPresent() && settings.delimiter().get() == settings.decimalSeparator()) {
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the import profile gives '"
+          + settings.decimalSeparator() + "' as both delimiter and decimal separator");
+    }
+    if (settings.delimiter().isPresent() && settings.delimiter().equals(settings.groupingSeparator())) {
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the import profile gives '"
+          + settings.delimiter().get() + "' as both delimiter and thousands separator");
+    }
     TextInput text = TextInput.open(in, settings, sourceName);
     BufferedReader reader = new BufferedReader(text, SNIFF_CHARS + 1024);
     char delimiter;

@@ -255,6 +255,26 @@ class DelimitedImporterTest extends ImporterContract {
     assertSameReadings(lng, wide);
   }
 
+  @Test
+  @DisplayName("the wide demo export reads the same with its delimiter and charset detected instead of set")
+  void wideDemoDetected() throws Exception {
+    ImportSettings profile = ImportProfiles.parse(
+        Files.readString(REPO.resolve("config-examples/importers/wide-semicolon.yaml")), "wide-semicolon.yaml");
+    ImportSettings detected = profile.toBuilder().detectDelimiter().detectCharset().build();
+    try (var in = Files.newInputStream(REPO.resolve("demo-data/run-R2611A-wide.txt"))) {
+      RawRun run = new DelimitedImporter().read(in, detected, "run-R2611A-wide.txt");
+      assertSameReadings(demo("run-R2611A-wide.txt", "wide-semicolon.yaml"), run);
+      assertEquals(Optional.of("21,5 °C"), run.metadataValue("Room temperature"));
+    }
+  }
+
+  @Test
+  @DisplayName("a profile giving one character as delimiter and decimal separator is an import error")
+  void delimiterDecimalClash() {
+    ImportSettings s = ImportSettings.DEFAULT.toBuilder().delimiter(',').decimalSeparator(',').build();
+    assertThrows(ImportException.class, () -> read("Sample,Element,Intensity\nA,Cd,1\n", s));
+  }
+
   static void assertSameReadings(RawRun a, RawRun b) {
     assertEquals(a.injections().size(), b.injections().size());
     for (int i = 0; i < a.injections().size(); i++) {
