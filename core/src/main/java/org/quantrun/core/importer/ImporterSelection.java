@@ -16,7 +16,12 @@ import java.util.Optional;
  */
 public final class ImporterSelection {
 
-  /** One importer's detection result. */
+  /**
+   * One importer's detection result.
+   *
+   * @param importerId the importer's id
+   * @param confidence its confidence, clamped to 0..1 (0 when its detector threw)
+   */
   public record Candidate(String importerId, double confidence) {}
 
   private final Map<String, RunImporter> importers;

@@ -174,7 +174,7 @@ public final class TableRunAssembler {
         if (m.matches()) {
           WideColumn w = wideColumn(m, i);
           known++;
-          String key = w.analyteLine().label() + "|" + w.stat();
+          String key = w.analyteLine().label() + "|" + w.statText();
           Integer before = wideKeys.putIfAbsent(key, i);
           if (before != null) {
             duplicates.add(duplicateText(names, columns, before, i, w.analyteLine().label()));
@@ -274,7 +274,7 @@ public final class TableRunAssembler {
       s = Stat.REPLICATE;
     }
     return new WideColumn(index, analyteLine(analyte, line), unit.isEmpty() ? Optional.empty() : Optional.of(unit), s,
-        stat.isEmpty() ? Stat.REPLICATE.name() : stat);
+        stat.isEmpty() ? "" : stat.replace(" ", ""));
   }
 
   private static String group(Matcher m, String name) {

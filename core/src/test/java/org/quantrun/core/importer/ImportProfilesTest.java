@@ -68,6 +68,7 @@ class ImportProfilesTest {
     assertTrue(e.getMessage().matches("p\\.yaml:\\d+:\\d+: not valid YAML: .*"), e.getMessage());
   }
 
+  // common practice: the "billion laughs" alias expansion attack, nine aliases per level
   @Test
   @DisplayName("an alias bomb is refused (billion laughs)")
   void aliasBomb() {

@@ -34,6 +34,8 @@ class TextInputTest {
     return out;
   }
 
+  // byte-order marks EF BB BF (UTF-8), FF FE (UTF-16 LE), FE FF (UTF-16 BE): the Unicode
+  // standard's values, from memory
   @Test
   @DisplayName("byte-order marks pick UTF-8 or UTF-16 and are not part of the text")
   void byteOrderMarks() throws ImportException {

@@ -28,6 +28,8 @@ class ValueReaderTest {
     assertEquals(7, r.read("+7", "x", 1, 1).value());
   }
 
+  // common practice: continental exports write 1.234.567,5 for 1234567.5, with digit groups of
+  // three (ISO 80000-1 allows a comma or a point as the decimal sign; from memory)
   @Test
   @DisplayName("decimal comma with thousands points reads; groups must have three digits")
   void decimalCommaAndGrouping() throws ImportException {

@@ -195,6 +195,19 @@ class DelimitedImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("wide layout with replicate columns in one row per injection reads every replicate")
+  void wideReplicateColumns() throws ImportException {
+    String text = "Sample,Cd 228.802 rep 1,Cd 228.802 rep 2,Cd 228.802 sd\nA,10,12,1.4\nB,30,31,0.7\n";
+    RawRun run = read(text, ImportSettings.DEFAULT.toBuilder().layout(Layout.WIDE).build());
+    LineReadings b = run.injections().get(1).lines().get(0);
+    assertEquals(List.of(30.0, 31.0), b.replicates().stream().map(Reading::value).toList());
+    assertReading(b.reportedSd().orElseThrow(), 0.7);
+    ImportException dup = assertThrows(ImportException.class,
+        () -> read("Sample,Cd 228.802 rep 1,Cd 228.802 rep 1\nA,1,2\n", ImportSettings.DEFAULT.toBuilder().layout(Layout.WIDE).build()));
+    assertTrue(dup.getMessage().startsWith("run.csv:1:3: duplicate header"), dup.getMessage());
+  }
+
+  @Test
   @DisplayName("skip and end rules drop summary and footer rows")
   void skipAndEndRules() throws ImportException {
     String text = "Sample,Element,Intensity\nA,Cd,5\nAverage,Cd,5\nB,Cd,6\nEnd of data\ngarbage,,\n";

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import org.junit.jupiter.api.DisplayName;
 import org.junit.jupiter.api.Test;
 
+/** Delimiter detection; the cases are common practice of instrument and spreadsheet exports. */
 class DelimiterSnifferTest {
 
   static char sniff(String text) {
