@@ -331,8 +331,8 @@ public final class TableRunAssembler {
           "header has no column for " + bestCandidateMissing);
     }
     return new ImportException(sourceName, SourcePosition.UNKNOWN,
-        "no header line with the required columns found in the first " + settings.headerSearchLines()
-            + " lines (needs " + String.join("; ", missing(Map.of(), List.of(), List.of())) + ")");
+        "no header line with the required columns found (searched up to " + settings.headerSearchLines()
+            + " lines; needs " + String.join("; ", missing(Map.of(), List.of(), List.of())) + ")");
   }
 
   /**
@@ -565,7 +565,7 @@ public final class TableRunAssembler {
     }
     closeInjection();
     if (injections.isEmpty()) {
-      throw new ImportException(sourceName, SourcePosition.ofLine(headerLine), "header but no data rows after it");
+      throw new ImportException(sourceName, SourcePosition.ofLine(headerLine), "the header has no data rows after it");
     }
     return new RawRun(sourceName, importerId, metadata, injections);
   }

@@ -201,7 +201,11 @@ public final class TextInput extends Reader {
     if (failure != null) {
       return failure;
     }
-    String msg = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+    Throwable t = e;
+    while (t.getCause() != null && t.getCause() != t) {
+      t = t.getCause();
+    }
+    String msg = t.getMessage() == null ? t.getClass().getSimpleName() : t.getMessage();
     return new ImportException(sourceName, SourcePosition.ofLine(Math.max(fallbackLine, 0)), "cannot be read: " + msg, e);
   }
 

@@ -113,7 +113,7 @@ public final class DelimitedImporter implements RunImporter {
           }
           record = records.next();
         } catch (UncheckedIOException | IllegalStateException e) {
-          throw text.problem(e, (int) lineBefore + 1);
+          throw parseProblem(text, e, (int) lineBefore + 1);
         }
         int line = (int) lineBefore + 1;
         lineBefore = parser.getCurrentLineNumber();
@@ -139,12 +139,27 @@ public final class DelimitedImporter implements RunImporter {
         table.row(cells, line);
       }
     } catch (IOException | UncheckedIOException e) {
-      throw text.problem(e, (int) lineBefore + 1);
+      throw parseProblem(text, e, (int) lineBefore + 1);
     }
     if (!table.hasHeader() && lineBefore == 0) {
-      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "is empty");
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the file is empty");
     }
     return table.finish();
+  }
+
+  /** Turns a parser failure into the import error, in words for the technician. */
+  private static ImportException parseProblem(TextInput text, Exception e, int line) {
+    ImportException p = text.problem(e, line);
+    String m = p.problem();
+    String plain;
+    if (m.contains("EOF reached before encapsulated token finished")) {
+      plain = "a quoted field is not closed before the end of the file";
+    } else if (m.contains("Invalid character between encapsulated token and delimiter")) {
+      plain = "text after the closing quote of a field (a quote inside a field must be doubled)";
+    } else {
+      return p;
+    }
+    return new ImportException(p.sourceName(), p.position(), plain, e);
   }
 
   private static char sniff(BufferedReader reader, ImportSettings settings, String sourceName)
@@ -159,7 +174,7 @@ public final class DelimitedImporter implements RunImporter {
     reader.reset();
     String head = new String(buf, 0, n);
     if (head.isBlank()) {
-      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "is empty");
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the file is empty");
     }
     return DelimiterSniffer.sniff(head, n == buf.length, settings.quote(), settings.decimalSeparator() != ',')
         .map(DelimiterSniffer.Result::delimiter)

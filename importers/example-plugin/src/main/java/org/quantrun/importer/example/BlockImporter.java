@@ -103,7 +103,7 @@ public final class BlockImporter implements RunImporter {
       throw text.problem(e, lineNo + 1);
     }
     if (block == null) {
-      throw new ImportException(sourceName, SourcePosition.UNKNOWN, lineNo == 0 ? "is empty" : "has no [sample id] block");
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, lineNo == 0 ? "the file is empty" : "has no [sample id] block");
     }
     injections.add(block.build(sourceName, injections.size() + 1));
     return new RawRun(sourceName, id(), metadata, injections);

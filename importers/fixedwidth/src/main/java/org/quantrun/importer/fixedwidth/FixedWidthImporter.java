@@ -147,7 +147,7 @@ public final class FixedWidthImporter implements RunImporter {
       throw text.problem(e, lineNo + 1);
     }
     if (seen == 0) {
-      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "is empty");
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the file is empty");
     }
     return table.finish();
   }
