@@ -25,7 +25,7 @@ import org.quantrun.core.importer.RunImporter;
 /**
  * The contract every importer must keep, as JUnit 5 tests. An importer's test class extends this
  * and supplies its sample files; the kit supplies the generic hostile ones (empty file, binary
- * garbage, a 10 MB line).
+ * garbage, a 10 MB line, random corruptions of the valid sample).
  *
  * <p>What is checked: an empty file, binary garbage and a missing required column are import
  * errors (the last naming the line and column the subclass expects); every other sample either
@@ -225,6 +225,35 @@ public abstract class ImporterContract {
     assertTrue(e.position().column() >= 1, () -> "no column in: " + e.getMessage());
     assertTrue(e.getMessage().startsWith(SOURCE + ":" + missingColumnLine() + ":" + e.position().column() + ": "),
         e.getMessage());
+  }
+
+  @Test
+  @DisplayName("300 random corruptions of the valid sample give runs or import errors, never another exception")
+  void corruptedSamplesGiveOnlyImportErrors() {
+    byte[] valid = validSample();
+    byte[] noise = {',', ';', '\t', '|', '"', '\n', '\r', ' ', '-', '.', 'x', '0', '9', '[', ']', '=', '#', ':',
+        (byte) 0xFF, (byte) 0xC3, 0};
+    Random rnd = new Random(7);
+    for (int i = 0; i < 300; i++) {
+      byte[] b = valid.clone();
+      int edits = 1 + rnd.nextInt(4);
+      for (int k = 0; k < edits && b.length > 0; k++) {
+        switch (rnd.nextInt(3)) {
+          case 0 -> b[rnd.nextInt(b.length)] = noise[rnd.nextInt(noise.length)];
+          case 1 -> b = Arrays.copyOf(b, rnd.nextInt(b.length));
+          default -> {
+            int at = rnd.nextInt(b.length);
+            int len = Math.min(b.length - at, 1 + rnd.nextInt(40));
+            byte[] out = Arrays.copyOf(b, b.length - len);
+            System.arraycopy(b, at + len, out, at, b.length - at - len);
+            b = out;
+          }
+        }
+      }
+      byte[] sample = b;
+      readsTwiceEqual(sample, settings());
+      importer().detect("sample.txt", head(sample));
+    }
   }
 
   @Test
