@@ -117,6 +117,20 @@ class ImporterPluginsTest {
   }
 
   @Test
+  @DisplayName("'quantrun importers --detect' shows the confidences and the importer auto picks")
+  void importersDetect() {
+    StringWriter out = new StringWriter();
+    StringWriter err = new StringWriter();
+    CommandLine cl = Main.commandLine();
+    cl.setOut(new PrintWriter(out));
+    cl.setErr(new PrintWriter(err));
+    int code = cl.execute("importers", "--plugins", BUILT.toString(), "--detect", "../demo-data/run-R2611A-report.txt");
+    assertEquals(0, code, err.toString());
+    assertTrue(out.toString().contains("auto picks: fixed-width"), out.toString());
+    assertTrue(out.toString().matches("(?s)fixed-width\\s+0\\.\\d\\d.*"), out.toString());
+  }
+
+  @Test
   @DisplayName("'quantrun importers --plugins' with a folder that does not exist is a usage error (exit 2)")
   void missingPluginsFolder(@TempDir Path dir) {
     StringWriter err = new StringWriter();
