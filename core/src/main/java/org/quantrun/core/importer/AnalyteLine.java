@@ -16,6 +16,8 @@ public record AnalyteLine(String analyte, Optional<String> line) {
   /**
    * Checks the parts.
    *
+   * @param analyte the analyte as exported, e.g. {@code Cd}; never blank
+   * @param line the line or mass as exported, if the export gives one
    * @throws IllegalArgumentException if the analyte is blank or the line is present but blank
    */
   public AnalyteLine {

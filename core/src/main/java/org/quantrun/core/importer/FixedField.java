@@ -15,6 +15,9 @@ public record FixedField(String name, int start, int width) {
   /**
    * Checks the parts.
    *
+   * @param name the field name, e.g. {@code Sample} or {@code sample_id}
+   * @param start the 1-based first character column
+   * @param width the number of characters (the last field may run past it to the end of the line)
    * @throws IllegalArgumentException if the name is blank, start below 1 or width below 1
    */
   public FixedField {

@@ -27,6 +27,12 @@ public record Injection(
   /**
    * Copies the list and checks the parts.
    *
+   * @param sequence the 1-based position in the run: the exported sequence number when the export has one, otherwise the order of appearance
+   * @param sampleId the sample id as exported, e.g. {@code W2611-007-DUP}; never blank
+   * @param sampleType the sample type the export gives (e.g. {@code STD}, {@code QC}), if any; classifying samples is the method's job, not the importer's
+   * @param timestamp the acquisition time stamp as exported (text, unparsed), if any
+   * @param lines what each analyte line gave, in export order (one entry per analyte line)
+   * @param position where the injection's first row was read
    * @throws IllegalArgumentException if the sample id is blank or the sequence is below 1
    */
   public Injection {

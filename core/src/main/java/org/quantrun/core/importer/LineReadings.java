@@ -25,7 +25,17 @@ public record LineReadings(
     Optional<String> remark,
     SourcePosition position) {
 
-  /** Copies the list and checks for nulls. */
+  /**
+   * Copies the list and checks for nulls.
+   *
+   * @param analyteLine the analyte line
+   * @param unit the signal or concentration unit as exported (e.g. {@code cps}), if any
+   * @param replicates the replicate readings in export order; may be empty when only a mean is given
+   * @param reportedMean the mean the instrument reported, if exported
+   * @param reportedSd the standard deviation the instrument reported, if exported
+   * @param remark an instrument remark or flag text for this line, if any
+   * @param position where the first item for this line was read
+   */
   public LineReadings {
     Objects.requireNonNull(analyteLine, "analyteLine");
     Objects.requireNonNull(unit, "unit");

@@ -14,6 +14,9 @@ public record MetadataEntry(String key, String value, SourcePosition position) {
   /**
    * Checks the parts.
    *
+   * @param key the key as exported (trimmed); never blank
+   * @param value the value as exported (trimmed); may be empty
+   * @param position where it was read
    * @throws IllegalArgumentException if the key is blank
    */
   public MetadataEntry {

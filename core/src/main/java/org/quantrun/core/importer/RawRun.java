@@ -21,7 +21,14 @@ import java.util.Set;
 public record RawRun(
     String sourceName, String importerId, List<MetadataEntry> metadata, List<Injection> injections) {
 
-  /** Copies the lists and checks for nulls. */
+  /**
+   * Copies the lists and checks for nulls.
+   *
+   * @param sourceName the name of the source as given to the importer (used in every message)
+   * @param importerId the id of the importer that read it
+   * @param metadata run metadata in export order (keys may repeat)
+   * @param injections the injections in sequence order
+   */
   public RawRun {
     Objects.requireNonNull(sourceName, "sourceName");
     Objects.requireNonNull(importerId, "importerId");

@@ -22,6 +22,10 @@ public record Reading(double value, Optional<String> invalidReason, int line, in
   /**
    * Checks that the value and the reason agree.
    *
+   * @param value the value; {@code NaN} exactly when the reading is invalid
+   * @param invalidReason why the reading has no value; empty for a valid reading
+   * @param line the 1-based source line
+   * @param column the 1-based source column (field number or character column)
    * @throws IllegalArgumentException if a valid reading is not finite or an invalid one has a value
    */
   public Reading {

@@ -17,6 +17,8 @@ public record SourcePosition(int line, int column) {
   /**
    * Checks the parts.
    *
+   * @param line 1-based line number, or 0 when not known
+   * @param column 1-based column, or 0 when not known
    * @throws IllegalArgumentException if a part is negative
    */
   public SourcePosition {

@@ -57,7 +57,12 @@ public final class ImporterPlugins {
    * @param problems what was skipped and why
    */
   public record Result(List<LoadedImporter> importers, List<Problem> problems) {
-    /** Copies the lists. */
+    /**
+     * Copies the lists.
+     *
+     * @param importers the importers, in load order
+     * @param problems what was skipped and why
+     */
     public Result {
       importers = List.copyOf(importers);
       problems = List.copyOf(problems);
