@@ -56,7 +56,7 @@ public final class ColumnNames {
   private static Map<String, List<String>> defaults() {
     Map<String, List<String>> m = new LinkedHashMap<>();
     m.put(SEQUENCE, List.of("sequence", "seq", "seq no", "seq nr", "run order", "position", "injection no", "injection"));
-    m.put(SAMPLE_ID, List.of("sample id", "sample", "sample name", "solution", "solution label", "label"));
+    m.put(SAMPLE_ID, List.of("sample id", "sample", "sample name", "solution", "label"));
     m.put(SAMPLE_TYPE, List.of("sample type", "type", "solution type"));
     m.put(TIMESTAMP, List.of("timestamp", "time stamp", "time", "date time", "datetime", "acquired", "acquisition time"));
     m.put(ANALYTE, List.of("analyte", "element"));

@@ -29,7 +29,7 @@ public final class ImportSettings {
 
   /** Texts that mean "no value" by default (compared ignoring case; common practice, our list). */
   public static final Set<String> DEFAULT_INVALID_MARKERS =
-      Set.of("OVER", "UNDER", "----", "---", "--", "-", "n/a", "na", "nan", "#####", "uncal", "error");
+      Set.of("OVER", "UNDER", "----", "---", "--", "-", "n/a", "na", "nan", "#####");
 
   /**
    * Default wide-layout header pattern: an element symbol, an optional line or mass, an optional
