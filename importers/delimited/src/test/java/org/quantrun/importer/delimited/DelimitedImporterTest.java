@@ -208,6 +208,22 @@ class DelimitedImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("long layout with replicate columns, a combined analyte-line column, mean and SD reads them all")
+  void longReplicateColumns() throws ImportException {
+    String text = "Sample\tChannel\tReading 1\tReading 2\tReading 3\tMean\tSD\tFlag\n"
+        + "A\tCd228.802\t10\t11\t12\t11\t1\t\nA\tPb 220.353\t20\tOVER\t22\t21\t1.41\tcheck\n";
+    RawRun run = read(text, ImportSettings.DEFAULT);
+    assertEquals(1, run.injections().size());
+    LineReadings cd = run.injections().get(0).line(AnalyteLine.of("Cd", "228.802")).orElseThrow();
+    assertEquals(List.of(10.0, 11.0, 12.0), cd.replicates().stream().map(Reading::value).toList());
+    assertReading(cd.reportedMean().orElseThrow(), 11);
+    LineReadings pb = run.injections().get(0).line(AnalyteLine.of("Pb", "220.353")).orElseThrow();
+    assertFalse(pb.replicates().get(1).isValid());
+    assertEquals(Optional.of("check"), pb.remark());
+    assertEquals(4, pb.replicates().get(1).column());
+  }
+
+  @Test
   @DisplayName("skip and end rules drop summary and footer rows")
   void skipAndEndRules() throws ImportException {
     String text = "Sample,Element,Intensity\nA,Cd,5\nAverage,Cd,5\nB,Cd,6\nEnd of data\ngarbage,,\n";
