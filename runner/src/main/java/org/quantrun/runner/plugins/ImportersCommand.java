@@ -38,7 +38,7 @@ public final class ImportersCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
     for (ImporterPlugins.Problem p : result.problems()) {
-      err.println("quantrun: plugin skipped: " + p.text());
+      err.println("quantrun: " + (p.source().endsWith(".jar") ? "plugin skipped: " : "") + p.text());
     }
     if (detect != null) {
       return detect(result.selection(), out, err);
