@@ -35,6 +35,24 @@ class ImportProfilesTest {
   }
 
   @Test
+  @DisplayName("every example profile loads")
+  void everyExampleLoads() throws Exception {
+    try (var files = Files.list(EXAMPLES)) {
+      List<Path> yamls = files.filter(p -> p.toString().endsWith(".yaml")).toList();
+      assertTrue(yamls.size() >= 5, yamls.toString());
+      for (Path p : yamls) {
+        ImportSettings s = ImportProfiles.parse(Files.readString(p), p.getFileName().toString());
+        assertTrue(List.of("delimited", "fixed-width").contains(s.importer()), p.toString());
+      }
+    }
+    ImportSettings tab = ImportProfiles.parse(Files.readString(EXAMPLES.resolve("tab-renamed-columns.yaml")), "t.yaml");
+    assertEquals(Optional.of('\t'), tab.delimiter());
+    assertTrue(tab.invalidMarkers().contains("<lod>"));
+    ImportSettings cols = ImportProfiles.parse(Files.readString(EXAMPLES.resolve("fixed-width-columns.yaml")), "c.yaml");
+    assertEquals(new FixedField("sample_id", 6, 16), cols.fixedFields().get(1));
+  }
+
+  @Test
   @DisplayName("a profile gives the same settings as the fluent builder")
   void profileEqualsBuilder() throws ImportException {
     ImportSettings p = ImportProfiles.parse("importer: delimited\ndelimiter: \"\\t\"\nlayout: wide\n", "p.yaml");

@@ -304,6 +304,23 @@ class DelimitedImporterTest extends ImporterContract {
     assertThrows(ImportException.class, () -> read("Sample,Element,Intensity\nA,Cd,1\n", s));
   }
 
+  @Test
+  @DisplayName("the tab profile with renamed columns reads its example rows")
+  void tabProfile() throws Exception {
+    ImportSettings s = ImportProfiles.parse(
+        Files.readString(REPO.resolve("config-examples/importers/tab-renamed-columns.yaml")), "tab-renamed-columns.yaml");
+    String text = "Probe\tElem\tLine\tR1\tR2\tR3\tAvg\tStdev\tNote\n"
+        + "W-01\tCd\t228.802\t101.5\t99.5\t<LOD>\t100.4\t1.0\t\n"
+        + "Sample summary\tW-01\t\t\t\t\t\t\t\n"
+        + "W-02\tCd\t228.802\t201.5\t199.5\t200.1\t200.4\t1.0\tok\n";
+    RawRun run = read(text, s);
+    assertEquals(List.of("W-01", "W-02"), run.injections().stream().map(Injection::sampleId).toList());
+    LineReadings w1 = run.injections().get(0).lines().get(0);
+    assertEquals(3, w1.replicates().size());
+    assertFalse(w1.replicates().get(2).isValid());
+    assertReading(w1.reportedSd().orElseThrow(), 1.0);
+  }
+
   static void assertSameReadings(RawRun a, RawRun b) {
     assertEquals(a.injections().size(), b.injections().size());
     for (int i = 0; i < a.injections().size(); i++) {

@@ -121,6 +121,25 @@ class FixedWidthImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("the column-field profile reads its example listing, skipping page headers")
+  void columnFieldProfile() throws Exception {
+    ImportSettings s = ImportProfiles.parse(
+        Files.readString(REPO.resolve("config-examples/importers/fixed-width-columns.yaml")), "fixed-width-columns.yaml");
+    String text = "Page 1 of 1\n"
+        + "0001 W2611-001        Cd 228.802       1201.5    1199.0    1210.2\n"
+        + "0001 W2611-001        Pb 220.353        310.0     312.5      OVER\n"
+        + "Page 2 of 2\n"
+        + "0002 W2611-002        Cd 228.802        501.5     499.0     510.2\n";
+    RawRun run = new FixedWidthImporter().read(new ByteArrayInputStream(text.getBytes(Charset.forName("windows-1252"))), s, "l.txt");
+    assertEquals(2, run.injections().size());
+    assertEquals(2, run.injections().get(1).sequence());
+    LineReadings pb = run.injections().get(0).line(AnalyteLine.of("Pb", "220.353")).orElseThrow();
+    assertReading(pb.replicates().get(1), 312.5);
+    assertFalse(pb.replicates().get(2).isValid());
+    assertEquals(58, pb.replicates().get(2).column());
+  }
+
+  @Test
   @DisplayName("skip patterns drop matching lines and the data pattern selects the record type")
   void skipAndRecordSelection() throws ImportException {
     String text = TABLE + "  2  STD-1           Note: check\n  average line to skip\n";
