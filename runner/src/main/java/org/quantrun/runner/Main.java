@@ -16,6 +16,7 @@ import picocli.CommandLine.Command;
       CommandLine.HelpCommand.class,
       org.quantrun.runner.calibrate.CalibrateCommand.class,
       CheckCommand.class,
+      org.quantrun.runner.plugins.ImportersCommand.class,
     })
 public final class Main implements Runnable {
 

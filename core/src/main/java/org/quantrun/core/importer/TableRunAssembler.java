@@ -1,0 +1,655 @@
+package org.quantrun.core.importer;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.TreeSet;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * Builds a {@link RawRun} from a table of text cells, whatever the text format: importers feed it
+ * metadata, candidate header lines and data rows; it maps header names through the aliases,
+ * finds the header by its required columns, reads long or wide layout, groups rows into
+ * injections and readings per analyte line, and keeps each item's line and column.
+ *
+ * <p>Use one instance per read; not thread-safe. Rows belong to the same injection while the
+ * injection key stays the same from one row to the next: the sequence number when there is a
+ * sequence column; else, when there is a replicate column, the sample id (in wide layout a
+ * replicate number that does not rise starts a new injection); else the sample id and time stamp.
+ */
+public final class TableRunAssembler {
+
+  private static final Pattern ANALYTE_AND_LINE = Pattern.compile("([A-Z][a-z]?)\\s*[ _]?\\s*(\\d.*)");
+
+  private final String sourceName;
+  private final String importerId;
+  private final ImportSettings settings;
+  private final ValueReader values;
+  private final List<MetadataEntry> metadata = new ArrayList<>();
+  private final List<Injection> injections = new ArrayList<>();
+  private final Map<String, String> aliasToCanonical = new HashMap<>();
+  private final Map<String, AnalyteLine> lineCache = new HashMap<>();
+
+  private boolean hasHeader;
+  private int headerLine;
+  private List<String> headerNames = List.of();
+  private int[] headerColumns = new int[0];
+  private final List<Integer> replicateColumns = new ArrayList<>();
+  private final List<WideColumn> wideColumns = new ArrayList<>();
+
+  private int bestCandidateLine;
+  private int bestCandidateFound = -1;
+  private int bestCandidateWidth;
+  private String bestCandidateMissing = "";
+
+  private String currentKey;
+  private InjectionBuilder current;
+
+  /**
+   * An assembler for one read.
+   *
+   * @param sourceName the source name for messages and the run
+   * @param importerId the id of the importer reading
+   * @param settings the import settings
+   */
+  public TableRunAssembler(String sourceName, String importerId, ImportSettings settings) {
+    this.sourceName = sourceName;
+    this.importerId = importerId;
+    this.settings = settings;
+    this.values = new ValueReader(sourceName, settings);
+    ColumnNames.DEFAULT_ALIASES.forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(n, c)));
+    ColumnNames.ALL.forEach(c -> aliasToCanonical.put(ColumnNames.normalise(c), c));
+    settings.columnAliases().forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(ColumnNames.normalise(n), c)));
+  }
+
+  /**
+   * Records one item of run metadata (from a preamble line, say).
+   *
+   * @param key the key; blank keys are ignored
+   * @param value the value
+   * @param position where it was read
+   */
+  public void metadata(String key, String value, SourcePosition position) {
+    String k = key.strip();
+    if (k.endsWith(":") || k.endsWith("=")) {
+      k = k.substring(0, k.length() - 1).strip();
+    }
+    if (!k.isEmpty()) {
+      metadata.add(new MetadataEntry(k, value.strip(), position));
+    }
+  }
+
+  /**
+   * Records a preamble line of cells as metadata: the first non-empty cell is the key, the other
+   * non-empty cells joined by a space the value; a single cell {@code key: value} or
+   * {@code key=value} is split there.
+   *
+   * @param cells the cells
+   * @param line the 1-based line
+   */
+  public void metadataLine(List<String> cells, int line) {
+    List<String> parts = new ArrayList<>();
+    for (String c : cells) {
+      if (!c.isBlank()) {
+        parts.add(c.strip());
+      }
+    }
+    if (parts.isEmpty()) {
+      return;
+    }
+    if (parts.size() == 1) {
+      String p = parts.get(0);
+      int at = indexOfSeparator(p);
+      if (at > 0) {
+        metadata(p.substring(0, at), p.substring(at + 1), SourcePosition.ofLine(line));
+      } else {
+        metadata(p, "", SourcePosition.ofLine(line));
+      }
+      return;
+    }
+    metadata(parts.get(0), String.join(" ", parts.subList(1, parts.size())), SourcePosition.ofLine(line));
+  }
+
+  private static int indexOfSeparator(String p) {
+    int colon = p.indexOf(':');
+    int eq = p.indexOf('=');
+    if (colon < 0) {
+      return eq;
+    }
+    return eq < 0 ? colon : Math.min(colon, eq);
+  }
+
+  /**
+   * Whether the header has been found.
+   *
+   * @return {@code true} after a successful {@link #tryHeader}
+   */
+  public boolean hasHeader() {
+    return hasHeader;
+  }
+
+  /**
+   * Tries a line as the header: it is the header when it has every required column.
+   *
+   * @param names the header texts
+   * @param columns the 1-based column of each text (field number or character column)
+   * @param line the 1-based line
+   * @return {@code true} if this line is the header
+   * @throws ImportException if it is the header but two columns give the same field
+   */
+  public boolean tryHeader(List<String> names, int[] columns, int line) throws ImportException {
+    firstDuplicateColumn = 0;
+    Map<String, Integer> canon = new HashMap<>();
+    List<Integer> reps = new ArrayList<>();
+    List<WideColumn> wide = new ArrayList<>();
+    List<String> duplicates = new ArrayList<>();
+    Map<String, Integer> wideKeys = new HashMap<>();
+    int known = 0;
+    for (int i = 0; i < names.size(); i++) {
+      String raw = names.get(i).replace("\uFEFF", "").strip();
+      String norm = ColumnNames.normalise(raw);
+      if (norm.isEmpty()) {
+        continue;
+      }
+      String c = aliasToCanonical.get(norm);
+      if (c != null && (settings.layout() == Layout.LONG || isKeyField(c))) {
+        known++;
+        Integer before = canon.putIfAbsent(c, i);
+        if (before != null) {
+          duplicates.add(duplicateText(names, columns, before, i, c));
+        }
+        continue;
+      }
+      if (settings.layout() == Layout.LONG) {
+        if (settings.replicateColumnPattern().matcher(raw).matches()) {
+          reps.add(i);
+          known++;
+        }
+      } else {
+        Matcher m = settings.wideColumnPattern().matcher(raw);
+        if (m.matches()) {
+          WideColumn w = wideColumn(m, i);
+          known++;
+          String key = w.analyteLine().label() + "|" + w.statText();
+          Integer before = wideKeys.putIfAbsent(key, i);
+          if (before != null) {
+            duplicates.add(duplicateText(names, columns, before, i, w.analyteLine().label()));
+          }
+          wide.add(w);
+        }
+      }
+    }
+    List<String> missing = missing(canon, reps, wide);
+    if (!missing.isEmpty()) {
+      int found = known;
+      if (found > bestCandidateFound && known >= 2) {
+        bestCandidateFound = found;
+        bestCandidateLine = line;
+        bestCandidateWidth = columns.length == 0 ? 0 : columns[columns.length - 1] + 1;
+        bestCandidateMissing = String.join(", ", missing);
+      }
+      return false;
+    }
+    if (!duplicates.isEmpty()) {
+      throw new ImportException(sourceName, new SourcePosition(line, firstDuplicateColumn), duplicates.get(0));
+    }
+    hasHeader = true;
+    colSample = index(canon, ColumnNames.SAMPLE_ID);
+    colSeq = index(canon, ColumnNames.SEQUENCE);
+    colType = index(canon, ColumnNames.SAMPLE_TYPE);
+    colTime = index(canon, ColumnNames.TIMESTAMP);
+    colUnit = index(canon, ColumnNames.UNIT);
+    colRemark = index(canon, ColumnNames.REMARK);
+    colRep = index(canon, ColumnNames.REPLICATE);
+    colAnalyte = index(canon, ColumnNames.ANALYTE);
+    colLine = index(canon, ColumnNames.LINE);
+    colAnalyteLine = index(canon, ColumnNames.ANALYTE_LINE);
+    colReading = index(canon, ColumnNames.READING);
+    colMean = index(canon, ColumnNames.MEAN);
+    colSd = index(canon, ColumnNames.SD);
+    replicateIndexes = reps.stream().mapToInt(Integer::intValue).toArray();
+    headerLine = line;
+    headerNames = List.copyOf(names);
+    headerColumns = columns.clone();
+    replicateColumns.addAll(reps);
+    wideColumns.addAll(wide);
+    return true;
+  }
+
+  private int firstDuplicateColumn;
+  private int colSample = -1;
+  private int colSeq = -1;
+  private int colType = -1;
+  private int colTime = -1;
+  private int colUnit = -1;
+  private int colRemark = -1;
+  private int colRep = -1;
+  private int colAnalyte = -1;
+  private int colLine = -1;
+  private int colAnalyteLine = -1;
+  private int colReading = -1;
+  private int colMean = -1;
+  private int colSd = -1;
+  private int[] replicateIndexes = new int[0];
+  private String lastAnalyte = "";
+  private String lastLineText = "";
+  private AnalyteLine lastAnalyteLine;
+
+  private static int index(Map<String, Integer> canon, String name) {
+    Integer i = canon.get(name);
+    return i == null ? -1 : i;
+  }
+
+  private String duplicateText(List<String> names, int[] columns, int first, int second, String field) {
+    if (firstDuplicateColumn == 0) {
+      firstDuplicateColumn = columns[second];
+    }
+    return "duplicate header: columns " + columns[first] + " (\"" + names.get(first).strip() + "\") and "
+        + columns[second] + " (\"" + names.get(second).strip() + "\") both give " + field;
+  }
+
+  private static boolean isKeyField(String c) {
+    return c.equals(ColumnNames.SEQUENCE) || c.equals(ColumnNames.SAMPLE_ID) || c.equals(ColumnNames.SAMPLE_TYPE)
+        || c.equals(ColumnNames.TIMESTAMP) || c.equals(ColumnNames.REMARK) || c.equals(ColumnNames.UNIT)
+        || c.equals(ColumnNames.REPLICATE);
+  }
+
+  private WideColumn wideColumn(Matcher m, int index) {
+    String analyte = m.group("analyte");
+    String line = group(m, "line");
+    String unit = group(m, "unit");
+    String stat = group(m, "stat").toLowerCase(java.util.Locale.ROOT);
+    Stat s;
+    if (stat.equals("mean") || stat.equals("avg") || stat.equals("average")) {
+      s = Stat.MEAN;
+    } else if (stat.equals("sd") || stat.equals("stdev")) {
+      s = Stat.SD;
+    } else if (stat.equals("rsd")) {
+      s = Stat.IGNORED;
+    } else {
+      s = Stat.REPLICATE;
+    }
+    return new WideColumn(index, analyteLine(analyte, line), unit.isEmpty() ? Optional.empty() : Optional.of(unit), s,
+        stat.isEmpty() ? "" : stat.replace(" ", ""));
+  }
+
+  private static String group(Matcher m, String name) {
+    try {
+      String g = m.group(name);
+      return g == null ? "" : g.strip();
+    } catch (IllegalArgumentException e) {
+      return "";
+    }
+  }
+
+  private List<String> missing(Map<String, Integer> canon, List<Integer> reps, List<WideColumn> wide) {
+    List<String> required = settings.requiredColumns();
+    if (required.isEmpty()) {
+      required = settings.layout() == Layout.LONG
+          ? List.of(ColumnNames.SAMPLE_ID, ColumnNames.ANALYTE, ColumnNames.READING)
+          : List.of(ColumnNames.SAMPLE_ID);
+    }
+    List<String> out = new ArrayList<>();
+    for (String r : required) {
+      boolean ok = switch (r) {
+        case ColumnNames.ANALYTE -> canon.containsKey(ColumnNames.ANALYTE) || canon.containsKey(ColumnNames.ANALYTE_LINE);
+        case ColumnNames.READING -> canon.containsKey(ColumnNames.READING) || canon.containsKey(ColumnNames.MEAN) || !reps.isEmpty();
+        default -> canon.containsKey(r);
+      };
+      if (!ok) {
+        out.add(r + " (e.g. " + aliasesText(r) + ")");
+      }
+    }
+    if (settings.layout() == Layout.WIDE && wide.isEmpty()) {
+      out.add("an analyte column matching " + settings.wideColumnPattern().pattern());
+    }
+    return out;
+  }
+
+  private String aliasesText(String canonical) {
+    TreeSet<String> names = new TreeSet<>(ColumnNames.DEFAULT_ALIASES.getOrDefault(canonical, List.of()));
+    names.addAll(settings.columnAliases().getOrDefault(canonical, List.of()));
+    if (canonical.equals(ColumnNames.ANALYTE)) {
+      names.addAll(ColumnNames.DEFAULT_ALIASES.get(ColumnNames.ANALYTE_LINE));
+    }
+    return String.join(", ", names.stream().map(n -> "'" + n + "'").toList());
+  }
+
+  /**
+   * The import error for a source whose header was never found: it names the line that came
+   * closest and the columns it lacks.
+   *
+   * @return the error
+   */
+  public ImportException noHeaderError() {
+    if (bestCandidateFound >= 0) {
+      return new ImportException(sourceName, new SourcePosition(bestCandidateLine, Math.max(1, bestCandidateWidth)),
+          "header has no column for " + bestCandidateMissing);
+    }
+    return new ImportException(sourceName, SourcePosition.UNKNOWN,
+        "no header line with the required columns found (searched up to " + settings.headerSearchLines()
+            + " lines; needs " + String.join("; ", missing(Map.of(), List.of(), List.of())) + ")");
+  }
+
+  /**
+   * The 1-based column a cell index stands for (header column, or counted on past it).
+   *
+   * @param index the 0-based cell index
+   * @return the column
+   */
+  private int column(int index) {
+    return index < headerColumns.length ? headerColumns[index] : index + 1;
+  }
+
+  private static String cell(List<String> cells, int index) {
+    if (index < 0 || index >= cells.size()) {
+      return "";
+    }
+    String c = cells.get(index);
+    return c == null ? "" : c;
+  }
+
+  private String name(int index) {
+    return index < headerNames.size() ? headerNames.get(index).strip() : "column " + (index + 1);
+  }
+
+  /**
+   * Adds one data row (after the header). Rows whose cells are all blank are ignored.
+   *
+   * @param cells the cells, in header order (missing trailing cells count as empty)
+   * @param line the 1-based line
+   * @throws ImportException for a bad row, naming line and column
+   */
+  public void row(List<String> cells, int line) throws ImportException {
+    row(cells, line, Optional.empty(), Optional.empty(), Optional.empty(), Optional.empty());
+  }
+
+  /**
+   * Adds one data row whose injection fields may come from context (e.g. a fixed-width report's
+   * injection header line) rather than from cells.
+   *
+   * @param cells the cells, in header order
+   * @param line the 1-based line
+   * @param contextSequence the sequence text from context, if any
+   * @param contextSampleId the sample id from context, if any
+   * @param contextType the sample type from context, if any
+   * @param contextTimestamp the time stamp from context, if any
+   * @throws ImportException for a bad row, naming line and column
+   */
+  public void row(List<String> cells, int line, Optional<String> contextSequence, Optional<String> contextSampleId,
+      Optional<String> contextType, Optional<String> contextTimestamp) throws ImportException {
+    if (!hasHeader) {
+      throw new IllegalStateException("row before header");
+    }
+    boolean blank = true;
+    for (String c : cells) {
+      if (c != null && !c.isBlank()) {
+        blank = false;
+        break;
+      }
+    }
+    if (blank) {
+      return;
+    }
+    String sampleId = colSample >= 0 ? cell(cells, colSample).strip() : contextSampleId.orElse("").strip();
+    if (sampleId.isEmpty()) {
+      throw new ImportException(sourceName, new SourcePosition(line, colSample < 0 ? 0 : column(colSample)),
+          "sample id is empty");
+    }
+    Optional<String> seqText = colSeq >= 0 ? nonBlank(cell(cells, colSeq)) : contextSequence.map(String::strip);
+    String timestamp = colTime >= 0 ? cell(cells, colTime).strip() : contextTimestamp.orElse("").strip();
+    String key;
+    boolean restart = false;
+    if (seqText.isPresent()) {
+      key = seqText.get();
+    } else if (colRep >= 0) {
+      // a row per replicate: the time stamp changes from replicate to replicate; a replicate
+      // number that does not rise starts a new injection of the same sample
+      key = sampleId;
+      if (settings.layout() == Layout.WIDE) {
+        int rep = replicateNumber(cell(cells, colRep), line, column(colRep));
+        restart = rep <= lastReplicate;
+        lastReplicate = rep;
+      }
+    } else {
+      key = timestamp.isEmpty() ? sampleId : sampleId + '\u0001' + timestamp;
+    }
+    if (current == null || restart || !key.equals(currentKey)) {
+      closeInjection();
+      int sequence = injections.size() + 1;
+      if (seqText.isPresent()) {
+        sequence = sequence(seqText.get(), line, colSeq < 0 ? 0 : column(colSeq));
+      }
+      String type = colType >= 0 ? cell(cells, colType).strip() : contextType.orElse("").strip();
+      current = new InjectionBuilder(sequence, sampleId, nonBlank(type), nonBlank(timestamp), SourcePosition.ofLine(line));
+      currentKey = key;
+    }
+    String rowUnit = colUnit >= 0 ? cell(cells, colUnit) : "";
+    String remark = colRemark >= 0 ? cell(cells, colRemark) : "";
+    if (settings.layout() == Layout.LONG) {
+      longRow(cells, line, rowUnit, remark);
+    } else {
+      wideRow(cells, line, rowUnit, remark);
+    }
+  }
+
+  private void longRow(List<String> cells, int line, String unit, String remark) throws ImportException {
+    AnalyteLine al;
+    int alCol = colAnalyte >= 0 ? colAnalyte : colAnalyteLine;
+    if (colAnalyte >= 0) {
+      String analyte = cell(cells, colAnalyte).strip();
+      if (analyte.isEmpty()) {
+        throw new ImportException(sourceName, new SourcePosition(line, column(colAnalyte)), "analyte is empty");
+      }
+      al = analyteLine(analyte, colLine < 0 ? "" : cell(cells, colLine).strip());
+    } else {
+      String text = cell(cells, colAnalyteLine).strip();
+      if (text.isEmpty()) {
+        throw new ImportException(sourceName, new SourcePosition(line, column(colAnalyteLine)), "analyte line is empty");
+      }
+      Matcher m = ANALYTE_AND_LINE.matcher(text);
+      al = m.matches() ? analyteLine(m.group(1), m.group(2)) : analyteLine(text, "");
+    }
+    LineBuilder lb = current.line(al, line, column(alCol));
+    for (int r : replicateIndexes) {
+      lb.replicates.add(values.read(cell(cells, r), name(r), line, column(r)));
+    }
+    if (colReading >= 0) {
+      lb.replicates.add(values.read(cell(cells, colReading), name(colReading), line, column(colReading)));
+    }
+    if (colMean >= 0 && lb.mean.isEmpty() && !cell(cells, colMean).isBlank()) {
+      lb.mean = Optional.of(values.read(cell(cells, colMean), name(colMean), line, column(colMean)));
+    }
+    if (colSd >= 0 && lb.sd.isEmpty() && !cell(cells, colSd).isBlank()) {
+      lb.sd = Optional.of(values.read(cell(cells, colSd), name(colSd), line, column(colSd)));
+    }
+    lb.add(unit, remark);
+  }
+
+  private void wideRow(List<String> cells, int line, String unit, String remark) throws ImportException {
+    for (WideColumn w : wideColumns) {
+      String text = cell(cells, w.index());
+      LineBuilder lb = current.line(w.analyteLine(), line, column(w.index()));
+      switch (w.stat()) {
+        case REPLICATE -> lb.replicates.add(values.read(text, name(w.index()), line, column(w.index())));
+        case MEAN -> {
+          if (lb.mean.isEmpty() && !text.isBlank()) {
+            lb.mean = Optional.of(values.read(text, name(w.index()), line, column(w.index())));
+          }
+        }
+        case SD -> {
+          if (lb.sd.isEmpty() && !text.isBlank()) {
+            lb.sd = Optional.of(values.read(text, name(w.index()), line, column(w.index())));
+          }
+        }
+        case IGNORED -> { }
+        default -> throw new IllegalStateException();
+      }
+      lb.add(w.unit().isPresent() ? w.unit().get() : unit, remark);
+    }
+  }
+
+  private int lastReplicate = Integer.MAX_VALUE;
+
+  private int replicateNumber(String text, int line, int column) throws ImportException {
+    String t = text.strip();
+    if (t.isEmpty()) {
+      return lastReplicate == Integer.MAX_VALUE ? 1 : lastReplicate + 1;
+    }
+    try {
+      return Integer.parseInt(t);
+    } catch (NumberFormatException e) {
+      throw new ImportException(sourceName, new SourcePosition(line, column),
+          "replicate \"" + t + "\" is not a whole number");
+    }
+  }
+
+  private int sequence(String text, int line, int column) throws ImportException {
+    try {
+      int s = Integer.parseInt(text.strip());
+      if (s >= 1) {
+        return s;
+      }
+    } catch (NumberFormatException e) {
+      // reported below
+    }
+    throw new ImportException(sourceName, new SourcePosition(line, column),
+        "sequence \"" + text.strip() + "\" is not a whole number >= 1");
+  }
+
+  private AnalyteLine analyteLine(String analyte, String line) {
+    if (lastAnalyteLine != null && analyte.equals(lastAnalyte) && line.equals(lastLineText)) {
+      return lastAnalyteLine;
+    }
+    lastAnalyte = analyte;
+    lastLineText = line;
+    lastAnalyteLine = analyteLine0(analyte, line);
+    return lastAnalyteLine;
+  }
+
+  private AnalyteLine analyteLine0(String analyte, String line) {
+    String k = analyte + '\u0001' + line;
+    AnalyteLine al = lineCache.get(k);
+    if (al == null) {
+      al = AnalyteLine.of(analyte, line);
+      lineCache.put(k, al);
+    }
+    return al;
+  }
+
+  private static Optional<String> nonBlank(String s) {
+    String t = s.strip();
+    return t.isEmpty() ? Optional.empty() : Optional.of(t);
+  }
+
+  private void closeInjection() {
+    if (current != null) {
+      injections.add(current.build());
+      current = null;
+    }
+  }
+
+  /**
+   * The run read so far, once every row is in.
+   *
+   * @return the run
+   * @throws ImportException if no header was found or there were no data rows
+   */
+  public RawRun finish() throws ImportException {
+    if (!hasHeader) {
+      throw noHeaderError();
+    }
+    closeInjection();
+    if (injections.isEmpty()) {
+      throw new ImportException(sourceName, SourcePosition.ofLine(headerLine), "the header has no data rows after it");
+    }
+    return new RawRun(sourceName, importerId, metadata, injections);
+  }
+
+  private enum Stat { REPLICATE, MEAN, SD, IGNORED }
+
+  private record WideColumn(int index, AnalyteLine analyteLine, Optional<String> unit, Stat stat, String statText) {}
+
+  private static final class InjectionBuilder {
+    final int sequence;
+    final String sampleId;
+    final Optional<String> type;
+    final Optional<String> timestamp;
+    final SourcePosition position;
+    final Map<AnalyteLine, LineBuilder> lines = new LinkedHashMap<>();
+
+    InjectionBuilder(int sequence, String sampleId, Optional<String> type, Optional<String> timestamp,
+        SourcePosition position) {
+      this.sequence = sequence;
+      this.sampleId = sampleId;
+      this.type = type;
+      this.timestamp = timestamp;
+      this.position = position;
+    }
+
+    LineBuilder last;
+
+    LineBuilder line(AnalyteLine al, int line, int column) {
+      if (last != null && last.analyteLine == al) {
+        return last;
+      }
+      last = lookup(al, line, column);
+      return last;
+    }
+
+    private LineBuilder lookup(AnalyteLine al, int line, int column) {
+      LineBuilder lb = lines.get(al);
+      if (lb == null) {
+        lb = new LineBuilder(al, new SourcePosition(line, column));
+        lines.put(al, lb);
+      }
+      return lb;
+    }
+
+    Injection build() {
+      List<LineReadings> out = new ArrayList<>(lines.size());
+      for (LineBuilder lb : lines.values()) {
+        out.add(lb.build());
+      }
+      return new Injection(sequence, sampleId, type, timestamp, out, position);
+    }
+  }
+
+  private static final class LineBuilder {
+    final AnalyteLine analyteLine;
+    final SourcePosition position;
+    final List<Reading> replicates = new ArrayList<>(4);
+    Optional<Reading> mean = Optional.empty();
+    Optional<Reading> sd = Optional.empty();
+    Optional<String> unit = Optional.empty();
+    List<String> remarks = List.of();
+
+    LineBuilder(AnalyteLine analyteLine, SourcePosition position) {
+      this.analyteLine = analyteLine;
+      this.position = position;
+    }
+
+    void add(String u, String remark) {
+      if (unit.isEmpty() && !u.isBlank()) {
+        unit = Optional.of(u.strip());
+      }
+      if (!remark.isBlank()) {
+        String r = remark.strip();
+        if (!remarks.contains(r)) {
+          List<String> all = new ArrayList<>(remarks);
+          all.add(r);
+          remarks = all;
+        }
+      }
+    }
+
+    LineReadings build() {
+      Optional<String> remark = remarks.isEmpty() ? Optional.empty() : Optional.of(String.join("; ", remarks));
+      return new LineReadings(analyteLine, unit, replicates, mean, sd, remark, position);
+    }
+  }
+}
