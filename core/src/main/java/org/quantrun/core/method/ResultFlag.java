@@ -10,6 +10,16 @@ public enum ResultFlag implements Token {
   ESTIMATED("estimated"),
   /** Above the calibrated or working range beyond its tolerance. */
   OVER_RANGE("over-range"),
+  /** Negative: reported as below the LOD, the signed value kept. */
+  NEGATIVE("negative"),
+  /** Below the lowest fitted standard: the curve was extrapolated downwards. */
+  EXTRAPOLATED("extrapolated"),
+  /** A quadratic curve does not reach the signal inside the calibrated range. */
+  NO_ROOT_IN_RANGE("no-root-in-range"),
+  /** The analyte line has no calibration in the run (no standards measured it). */
+  NOT_CALIBRATED("not-calibrated"),
+  /** No reading of the injection was valid for this line. */
+  NO_VALID_READINGS("no-valid-readings"),
   /** Strongly negative: possible over-correction of the blank. */
   OVER_CORRECTION("over-correction"),
   /** The calibration of the analyte failed its acceptance rules. */
