@@ -84,6 +84,7 @@ final class QcEvaluator {
       if (x == null) {
         continue;
       }
+      replicates(x);
       switch (c.role()) {
         case ICV: {
           Check k = recovery(x, QcKind.ICV, plan.icv());
@@ -278,6 +279,24 @@ final class QcEvaluator {
     Check k = record(diluted, QcKind.SERIAL_DILUTION, OptionalDouble.of(parent.x0), o);
     if (k.verdict == Verdict.FAILED) {
       parent.flags.add(ResultFlag.SERIAL_DILUTION_FAILED);
+    }
+  }
+
+  /**
+   * Replicate %RSD of the readings, judged from a multiple of the reporting limit up. Only failures
+   * are recorded as QC rows (a passing %RSD on every line of every injection would bury the table);
+   * the flag marks the result.
+   */
+  private void replicates(Draft x) {
+    if (!x.quantified() || x.raw.count() < 2 || Double.isNaN(x.reportingLimit)) {
+      return;
+    }
+    org.quantrun.core.method.ReplicateRule rule = plan.replicates();
+    CheckOutcome o = QcFormulas.replicateRsd(x.x0, x.x0 * x.raw.rsdPercent() / 100, rule.maxRsd(),
+        rule.minMultipleOfRl() * x.reportingLimit);
+    if (o.verdict() == Verdict.FAILED) {
+      x.flags.add(ResultFlag.REPLICATE_RSD_HIGH);
+      record(x, QcKind.REPLICATE_RSD, OptionalDouble.empty(), o);
     }
   }
 
