@@ -1,8 +1,10 @@
 package org.quantrun.core.processing;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.quantrun.core.calibration.BackCalculation;
@@ -52,6 +54,8 @@ final class AnalyteLineWork {
   private OptionalDouble blankSignal = OptionalDouble.empty();
   private Optional<CalibrationFit> fit = Optional.empty();
   private final List<String> rejections = new ArrayList<>();
+  /** True when nothing could be calibrated at all: no line, or no standard holds the analyte. */
+  private boolean notCalibrated;
   private final List<CalibrationLevel> levels = new ArrayList<>();
   private Optional<LimitEstimate> calibrationLimits = Optional.empty();
   private CalibrationResult result;
@@ -86,6 +90,13 @@ final class AnalyteLineWork {
   }
 
   AnalyteLineWork run() {
+    if (Arrays.stream(raw).allMatch(Objects::isNull)) {
+      rejections.add("the export has no line " + analyte.key());
+      notCalibrated = true;
+      finishCalibration();
+      quantify();
+      return this;
+    }
     correct();
     calibrate();
     quantify();
@@ -160,6 +171,7 @@ final class AnalyteLineWork {
     }
     if (sources.isEmpty()) {
       rejections.add("no standard of the run holds " + analyte.name() + " with a valid reading");
+      notCalibrated = true;
       finishCalibration();
       return;
     }
@@ -343,6 +355,14 @@ final class AnalyteLineWork {
         d.limitsFrom = Optional.of(l.source());
       });
       d.reportingLimit = analyte.reportingLimit().orElse(limits.map(LimitEstimate::loq).orElse(Double.NaN));
+      if (!accepted) {
+        if (notCalibrated) {
+          d.notReportable("not calibrated: " + String.join("; ", rejections), ResultFlag.NOT_CALIBRATED);
+        } else {
+          d.notReportable("calibration rejected: " + String.join("; ", rejections), ResultFlag.CALIBRATION_FAILED);
+        }
+        continue;
+      }
       if (s == null) {
         d.notReportable("the export has no reading of " + analyte.key() + " for this injection", ResultFlag.NO_VALID_READINGS);
         continue;
@@ -369,14 +389,6 @@ final class AnalyteLineWork {
       }
       if (p.problem().isPresent()) {
         d.notReportable(p.problem().get(), ResultFlag.NOT_CALIBRATED);
-        continue;
-      }
-      if (!accepted) {
-        if (fit.isEmpty() && rejections.stream().anyMatch(r -> r.startsWith("no standard"))) {
-          d.notReportable("not calibrated: " + String.join("; ", rejections), ResultFlag.NOT_CALIBRATED);
-        } else {
-          d.notReportable("calibration rejected: " + String.join("; ", rejections), ResultFlag.CALIBRATION_FAILED);
-        }
         continue;
       }
       CalibrationFit f = fit.get();

@@ -325,20 +325,17 @@ final class QcEvaluator {
       return;
     }
     boolean standAfterHighBias = ccv && plan.ccv().nonDetectsStandAfterHighBias();
+    int next = 0;
     for (Classified c : injections) {
+      while (next < chain.size() && chain.get(next).index < c.index()) {
+        next++;
+      }
       Draft s = d[c.index()];
       if (s == null || !c.isRealSample()) {
         continue;
       }
-      Check before = null;
-      Check after = null;
-      for (Check k : chain) {
-        if (k.index < c.index()) {
-          before = k;
-        } else if (after == null) {
-          after = k;
-        }
-      }
+      Check before = next > 0 ? chain.get(next - 1) : null;
+      Check after = next < chain.size() ? chain.get(next) : null;
       for (Check k : new Check[] {before, after}) {
         if (k == null || k.verdict != Verdict.FAILED) {
           continue;
