@@ -393,6 +393,12 @@ final class AnalyteLineWork {
       }
       CalibrationFit f = fit.get();
       Signal y = corrected[c.index()];
+      if (isCorrection.active()) {
+        d.trace.add("internal standard " + isCorrection.name() + ": signal x " + Text.num(isCorrection.ratio(c.index())));
+      }
+      blankSignal.ifPresent(b -> d.trace.add("calibration blank signal " + Text.num(b) + " subtracted"));
+      d.trace.add("read off the " + f.curve().token() + " curve (weighting " + f.weighting().token() + ", "
+          + f.n() + " points)");
       int m = analyte.fitPoints() == FitPoints.READINGS ? y.count() : 1;
       InversePrediction pr = f.predict(y.mean(), m, CONFIDENCE);
       d.position = pr.position();

@@ -118,4 +118,26 @@ class RunProcessorFlagsTest {
     assertTrue(msd.stream().allMatch(c -> c.verdict() == Verdict.PASSED), msd.toString());
     assertEquals(Verdict.PASSED, checks(res, QcKind.SPIKE).get(0).verdict(), "(58 - 20) / 40 = 95 %");
   }
+
+  @Test
+  @DisplayName("an injection without any valid reading of a line is not reportable for it, and its trace says why")
+  void noValidReadings() {
+    RunBuilder b = calibrated().inject("ICV", PB, sig(50)).inject("X1", "Cu 324.754", r(10, 11, 12))
+        .inject("CCV1", PB, sig(50));
+    RunResult res = run(b);
+    AnalyteResult x1 = result(res, "X1");
+    assertTrue(x1.flags().contains(ResultFlag.NO_VALID_READINGS), x1.flags().toString());
+    assertEquals("not reportable", x1.reported());
+    assertTrue(x1.trace().stream().anyMatch(t -> t.contains("the export has no reading of Pb 220.353")), x1.trace().toString());
+  }
+
+  @Test
+  @DisplayName("every quantified result's trace names the fit, the blank and the factors used")
+  void trace() {
+    RunResult res = run(calibrated().inject("ICV", PB, sig(50)).inject("X1", PB, sig(20)).inject("CCV1", PB, sig(50)));
+    List<String> t = result(res, "X1").trace();
+    assertTrue(t.stream().anyMatch(s -> s.startsWith("calibration blank signal 100 subtracted")), t.toString());
+    assertTrue(t.stream().anyMatch(s -> s.startsWith("read off the linear curve (weighting none, 3 points)")), t.toString());
+    assertTrue(t.stream().anyMatch(s -> s.startsWith("x0 = ")), t.toString());
+  }
 }
