@@ -17,6 +17,7 @@ import picocli.CommandLine.Command;
       org.quantrun.runner.calibrate.CalibrateCommand.class,
       CheckCommand.class,
       org.quantrun.runner.plugins.ImportersCommand.class,
+      org.quantrun.runner.generate.GenerateCommand.class,
     })
 public final class Main implements Runnable {
 
