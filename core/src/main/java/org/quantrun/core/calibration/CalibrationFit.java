@@ -749,6 +749,17 @@ public final class CalibrationFit {
     return m;
   }
 
+  /** Two fits are equal when they were made from equal points with equal options (the fit is a function of them). */
+  @Override
+  public boolean equals(Object o) {
+    return o instanceof CalibrationFit f && f.options.equals(options) && f.points.equals(points);
+  }
+
+  @Override
+  public int hashCode() {
+    return 31 * options.hashCode() + points.hashCode();
+  }
+
   @Override
   public String toString() {
     return "CalibrationFit[" + curve().token() + ", " + weighting().token() + ", n=" + n

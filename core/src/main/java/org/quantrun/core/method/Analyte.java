@@ -20,6 +20,8 @@ import org.quantrun.core.calibration.Weighting;
  * @param mdl the method detection limit, in {@code unit}
  * @param reportingLimit the reporting limit (LOQ override), in {@code unit}
  * @param workingRange the reportable range, in {@code unit}
+ * @param report whether this is the line reported for an analyte measured on several lines
+ *     (when no line of the analyte says so, the first listed is reported; the others are alternates)
  */
 public record Analyte(
     String name,
@@ -32,7 +34,8 @@ public record Analyte(
     Optional<String> internalStandard,
     Optional<Double> mdl,
     Optional<Double> reportingLimit,
-    Optional<WorkingRange> workingRange) {
+    Optional<WorkingRange> workingRange,
+    boolean report) {
 
   /**
    * A label unique within the method: the name, then the line or mass when there is one (e.g.

@@ -92,4 +92,17 @@ public record Method(
   public List<StandardLevel> levelsOf(String analyteName) {
     return standards.stream().filter(l -> l.concentrations().containsKey(analyteName)).toList();
   }
+
+  /**
+   * Whether an analyte line is the one reported for its analyte: the line marked {@code report},
+   * else the first listed line of that analyte. Other lines are alternates, kept in the output.
+   *
+   * @param analyte an analyte line of this method
+   * @return true for the reported line
+   */
+  public boolean isReportedLine(Analyte analyte) {
+    List<Analyte> same = analytes.stream().filter(a -> a.name().equals(analyte.name())).toList();
+    Optional<Analyte> marked = same.stream().filter(Analyte::report).findFirst();
+    return marked.map(a -> a == analyte).orElse(!same.isEmpty() && same.get(0) == analyte);
+  }
 }

@@ -33,7 +33,7 @@ final class MethodReader {
   static final List<String> IMPORT = List.of("importer", "profile", "settings");
   static final List<String> ANALYTE = List.of(
       "name", "line", "mass", "unit", "curve", "weighting", "fit-points", "internal-standard", "mdl", "reporting-limit",
-      "working-range");
+      "working-range", "report");
   static final List<String> RANGE = List.of("low", "high");
   static final List<String> INTERNAL_STANDARD = List.of("name", "element", "line", "mass");
   static final List<String> LEVEL = List.of("level", "concentrations");
@@ -243,11 +243,27 @@ final class MethodReader {
         }
         return Optional.empty();
       });
-      Analyte a = new Analyte(name, line, mass, unit, curve, weighting, fit, is, mdl, rl, range);
+      boolean report = m.bool("report", false);
+      Analyte a = new Analyte(name, line, mass, unit, curve, weighting, fit, is, mdl, rl, range, report);
       if (!name.isEmpty() && !keys.add(a.key())) {
         p.at(path + ".name", "analyte line '" + a.key() + "' is defined twice", "each name + line/mass once");
       }
       out.add(a);
+    }
+    Map<String, List<Analyte>> reported = new LinkedHashMap<>();
+    for (int i = 0; i < out.size(); i++) {
+      if (out.get(i).report()) {
+        reported.computeIfAbsent(out.get(i).name(), k -> new ArrayList<>()).add(out.get(i));
+      }
+    }
+    for (int i = 0; i < out.size(); i++) {
+      Analyte a = out.get(i);
+      List<Analyte> r = reported.getOrDefault(a.name(), List.of());
+      if (r.size() > 1 && a == r.get(1)) {
+        p.at(items.get(i).path() + ".report", "analyte " + a.name() + " has " + r.size() + " lines marked report: "
+            + r.stream().map(Analyte::key).collect(java.util.stream.Collectors.joining(", ")),
+            "report: true on one line of an analyte at most");
+      }
     }
     return out;
   }

@@ -24,6 +24,10 @@ public enum ResultFlag implements Token {
   OVER_CORRECTION("over-correction"),
   /** The calibration of the analyte failed its acceptance rules. */
   CALIBRATION_FAILED("calibration-failed"),
+  /** The ICV of the analyte failed: the calibration was not verified. */
+  ICV_FAILED("icv-failed"),
+  /** The ICB of the analyte failed. */
+  ICB_FAILED("icb-failed"),
   /** A bracketing CCV of the analyte failed. */
   CCV_FAILED("ccv-failed"),
   /** A bracketing CCB of the analyte failed. */

@@ -8,7 +8,7 @@ import java.util.OptionalDouble;
  *
  * <ul>
  *   <li>recovery of a check standard, LCS or low-level check: measured / true * 100;
- *   <li>blank: |result| below a limit (usually the reporting limit or a fraction of it);
+ *   <li>blank: |result| at most a limit (usually the reporting limit or a fraction of it);
  *   <li>duplicate (and MS/MSD): RPD = |a - b| / ((a + b) / 2) * 100 when both results are at least
  *       a multiple (5) of the reporting limit, else |a - b| against the reporting limit (or, if the
  *       method says so, not evaluated); RPD is not evaluated when a + b &lt;= 0;
@@ -35,17 +35,17 @@ public final class QcFormulas {
   }
 
   /**
-   * A blank: |result| must lie below {@code limit}; the value reported is the result itself.
+   * A blank: |result| must not exceed {@code limit}; the value reported is the result itself.
    *
    * @param unit the concentration unit, for the outcome
    */
   public static CheckOutcome blank(double result, double limit, String unit) {
     Window w = new Window(-limit, limit);
-    if (Math.abs(result) < limit) {
+    if (Math.abs(result) <= limit) {
       return new CheckOutcome(OptionalDouble.of(result), unit, w, Verdict.PASSED, java.util.Optional.empty());
     }
     return new CheckOutcome(OptionalDouble.of(result), unit, w, Verdict.FAILED, java.util.Optional.of(
-        "blank result " + CheckOutcome.fmt(result) + " " + unit + " is not below the limit "
+        "blank result " + CheckOutcome.fmt(result) + " " + unit + " is above the limit "
             + CheckOutcome.fmt(limit) + " " + unit + " in absolute value"));
   }
 
@@ -60,17 +60,15 @@ public final class QcFormulas {
    *
    * @param a the first result
    * @param b the second result
-   * @param reportingLimit the reporting limit of the analyte
+   * @param threshold the RPD is judged only when both results are at least this (by common
+   *     practice 5 times the reporting limit)
    * @param rpdLimit the highest acceptable RPD in %
-   * @param minimumMultiple the RPD is judged only when both results are at least this multiple of
-   *     the reporting limit (5 by common practice)
-   * @param absoluteBelow when the results are lower: true judges |a - b| &lt;= reporting limit,
-   *     false leaves the pair not evaluated
+   * @param absoluteLimit below the threshold, the highest acceptable |a - b| (by common practice
+   *     the reporting limit); NaN leaves such a pair not evaluated
    * @param unit the concentration unit, for an absolute difference
    */
-  public static CheckOutcome duplicate(double a, double b, double reportingLimit, double rpdLimit,
-      double minimumMultiple, boolean absoluteBelow, String unit) {
-    double threshold = minimumMultiple * reportingLimit;
+  public static CheckOutcome duplicate(double a, double b, double threshold, double rpdLimit,
+      double absoluteLimit, String unit) {
     if (a >= threshold && b >= threshold) {
       OptionalDouble rpd = rpd(a, b);
       if (rpd.isEmpty()) {
@@ -78,11 +76,11 @@ public final class QcFormulas {
       }
       return CheckOutcome.judged(rpd.getAsDouble(), PERCENT, Window.atMost(rpdLimit), "RPD");
     }
-    String below = "a result is below " + CheckOutcome.fmt(minimumMultiple) + "x the reporting limit";
-    if (!absoluteBelow) {
-      return CheckOutcome.notEvaluated(rpd(a, b), PERCENT, Window.atMost(rpdLimit), below);
+    if (Double.isNaN(absoluteLimit)) {
+      return CheckOutcome.notEvaluated(rpd(a, b), PERCENT, Window.atMost(rpdLimit),
+          "a result is below " + CheckOutcome.fmt(threshold) + ", the least an RPD is judged at");
     }
-    return CheckOutcome.judged(Math.abs(a - b), unit, Window.atMost(reportingLimit), "absolute difference");
+    return CheckOutcome.judged(Math.abs(a - b), unit, Window.atMost(absoluteLimit), "absolute difference");
   }
 
   /**

@@ -27,31 +27,33 @@ class QcFormulasTest {
   }
 
   @Test
-  @DisplayName("a blank passes while its absolute result is below the limit")
+  @DisplayName("a blank passes while its absolute result does not exceed the limit")
   void blank() {
     // ICB/CCB/method blank below the reporting limit (EPA 200.7, from memory).
     assertEquals(Verdict.PASSED, QcFormulas.blank(-0.8, 1.0, "ug/L").verdict());
     assertEquals(Verdict.FAILED, QcFormulas.blank(-1.2, 1.0, "ug/L").verdict());
-    assertEquals(Verdict.FAILED, QcFormulas.blank(1.0, 1.0, "ug/L").verdict());
+    assertEquals(Verdict.PASSED, QcFormulas.blank(1.0, 1.0, "ug/L").verdict());
+    assertEquals(Verdict.FAILED, QcFormulas.blank(1.0001, 1.0, "ug/L").verdict());
   }
 
   @Test
   @DisplayName("duplicates above 5x the reporting limit are judged by RPD, lower ones by the absolute difference")
   void duplicate() {
     // SW-846 style duplicate rule (from memory): RPD <= 20 % when both >= 5x RL, else
-    // |a - b| <= RL. RPD of 52 and 44 = 8 / 48 * 100 = 16.67 % (by hand).
-    CheckOutcome high = QcFormulas.duplicate(52, 44, 2, 20, 5, true, "ug/L");
+    // |a - b| <= RL. Here RL = 2, so the threshold is 10. RPD of 52 and 44 = 8 / 48 * 100 = 16.67 %
+    // (by hand).
+    CheckOutcome high = QcFormulas.duplicate(52, 44, 10, 20, 2, "ug/L");
     assertEquals(16.6667, high.value().getAsDouble(), 1e-4);
     assertEquals(Verdict.PASSED, high.verdict());
-    CheckOutcome highBad = QcFormulas.duplicate(60, 40, 2, 20, 5, true, "ug/L");
+    CheckOutcome highBad = QcFormulas.duplicate(60, 40, 10, 20, 2, "ug/L");
     assertEquals(40.0, highBad.value().getAsDouble(), 1e-12);
     assertEquals(Verdict.FAILED, highBad.verdict());
-    CheckOutcome low = QcFormulas.duplicate(5.0, 3.5, 2, 20, 5, true, "ug/L");
+    CheckOutcome low = QcFormulas.duplicate(5.0, 3.5, 10, 20, 2, "ug/L");
     assertEquals("ug/L", low.unit());
     assertEquals(1.5, low.value().getAsDouble(), 1e-12);
     assertEquals(Verdict.PASSED, low.verdict());
-    assertEquals(Verdict.FAILED, QcFormulas.duplicate(5.0, 2.5, 2, 20, 5, true, "ug/L").verdict());
-    assertEquals(Verdict.NOT_EVALUATED, QcFormulas.duplicate(5.0, 2.5, 2, 20, 5, false, "ug/L").verdict());
+    assertEquals(Verdict.FAILED, QcFormulas.duplicate(5.0, 2.5, 10, 20, 2, "ug/L").verdict());
+    assertEquals(Verdict.NOT_EVALUATED, QcFormulas.duplicate(5.0, 2.5, 10, 20, Double.NaN, "ug/L").verdict());
     assertTrue(QcFormulas.rpd(-1, 0.5).isEmpty(), "no RPD when a + b <= 0");
   }
 

@@ -1,0 +1,105 @@
+package org.quantrun.core.processing;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.quantrun.core.method.ConcentrationUnit;
+import org.quantrun.core.method.DilutionScheme;
+import org.quantrun.core.method.Method;
+import org.quantrun.core.method.PrepSheetLayout;
+import org.quantrun.core.method.SampleRole;
+import org.quantrun.core.method.SolidsBasis;
+import org.quantrun.core.method.prep.PrepSheet;
+import org.quantrun.core.method.prep.PrepSheetRow;
+
+/**
+ * How each injection's solution concentration turns into a result in the original sample.
+ *
+ * <ul>
+ *   <li>Calibration checks (ICV, CCV, ICB, CCB, low-level check) are measured as made: factor 1.
+ *   <li>Samples, duplicates, spikes, serial dilutions, method blanks and LCS use their prep-sheet
+ *       row when the method has a prep sheet (a duplicate or spike without a row of its own uses
+ *       its parent's): C_sample = C_solution * DF * V_final / mass, as received or, with a solids
+ *       fraction, dry weight; else the method's default dilution factor.
+ * </ul>
+ *
+ * The factor is linear, so it applies alike to the value, its half-width and the limits.
+ */
+final class SamplePrep {
+  private final Method method;
+  private final Optional<PrepSheet> sheet;
+  private final Map<String, Classified> byId = new HashMap<>();
+
+  /**
+   * What one injection's results are multiplied by.
+   *
+   * @param toSample the factor from the measured solution to the original sample
+   * @param dilutionFactor the dilution factor alone (1 for mass-based preparation too, where the
+   *     factor includes volume and mass)
+   * @param unit the unit of the results in the original sample
+   * @param prepBatch the prep batch, if the prep sheet names one
+   * @param trace the steps, in plain words
+   * @param problem why the results cannot be reported, if they cannot
+   */
+  record PrepOf(double toSample, double dilutionFactor, String unit, Optional<String> prepBatch, List<String> trace,
+      Optional<String> problem) {}
+
+  SamplePrep(Method method, Optional<PrepSheet> sheet, List<Classified> injections) {
+    this.method = method;
+    this.sheet = sheet;
+    for (Classified c : injections) {
+      byId.putIfAbsent(c.sampleId(), c);
+    }
+  }
+
+  /** The prep of one injection for the analyte line's unit. */
+  PrepOf of(Classified c, ConcentrationUnit unit) {
+    String solutionUnit = unit.token();
+    SampleRole r = c.role();
+    boolean prepared = c.isRealSample() || r == SampleRole.METHOD_BLANK || r == SampleRole.LCS;
+    if (!prepared) {
+      return new PrepOf(1, 1, solutionUnit, Optional.empty(), List.of(), Optional.empty());
+    }
+    Optional<PrepSheetRow> row = sheet.flatMap(s -> s.row(c.sampleId()));
+    if (row.isEmpty() && c.parent().isPresent()) {
+      row = sheet.flatMap(s -> s.row(c.parent().get()));
+    }
+    DilutionScheme scheme = method.dilution();
+    if (row.isEmpty()) {
+      double df = scheme.defaultFactor();
+      List<String> trace = df == 1 ? List.of() : List.of("default dilution factor " + Text.num(df));
+      Optional<String> problem = sheet.isPresent() && c.isRealSample()
+          ? Optional.of("sample " + c.sampleId() + " is not on the prep sheet " + sheet.get().source())
+          : Optional.empty();
+      return new PrepOf(df, df, solutionUnit, Optional.empty(), trace, problem);
+    }
+    PrepSheetRow p = row.get();
+    PrepSheetLayout layout = scheme.prepSheet().get();
+    Optional<Double> factor = p.toSampleBasis(1.0, unit, layout);
+    List<String> trace = new ArrayList<>();
+    trace.add("prep sheet line " + p.line() + ": dilution factor " + Text.num(p.dilutionFactor()) + ", "
+        + Text.num(p.sampleMass()) + " g made up to " + Text.num(p.finalVolume()) + " mL"
+        + (layout.basis() == SolidsBasis.DRY_WEIGHT ? p.solidsFraction().map(f -> ", solids fraction " + Text.num(f)).orElse("") : ""));
+    if (factor.isEmpty()) {
+      return new PrepOf(Double.NaN, p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), trace,
+          Optional.of("dry-weight reporting needs a solids fraction, and the prep sheet gives none for " + p.sampleId()));
+    }
+    trace.add("to " + layout.reportUnit().token() + " " + layout.basis().token() + ": x " + Text.num(factor.get()));
+    return new PrepOf(factor.get(), p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), trace,
+        Optional.empty());
+  }
+
+  /** The prep batch of an injection: its prep-sheet row's (or its parent's), else the whole run. */
+  String batch(Classified c) {
+    Optional<PrepSheetRow> row = sheet.flatMap(s -> s.row(c.sampleId()));
+    if (row.isEmpty() && c.parent().isPresent()) {
+      row = sheet.flatMap(s -> s.row(c.parent().get()));
+    }
+    return row.map(PrepSheetRow::prepBatch).orElse(RUN_BATCH);
+  }
+
+  /** The batch name used when there is no prep sheet: the run is one batch. */
+  static final String RUN_BATCH = "";
+}
