@@ -75,6 +75,7 @@ public final class Main implements Runnable {
   public static CommandLine commandLine(CommandLine.IFactory factory) {
     CommandLine cl = new CommandLine(new Main(), factory);
     cl.setParameterExceptionHandler(Main::onUsageError);
+    cl.setExecutionExceptionHandler(Main::onInternalError);
     return cl;
   }
 
@@ -82,6 +83,16 @@ public final class Main implements Runnable {
     CommandLine cl = e.getCommandLine();
     cl.getErr().println("quantrun: " + e.getMessage() + " (see '" + cl.getCommandSpec().qualifiedName() + " --help')");
     return EXIT_INPUT_ERROR;
+  }
+
+  /** An exception no command handled is a bug: one line for the user, the stack trace to the log file. */
+  private static int onInternalError(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
+    org.slf4j.LoggerFactory.getLogger(Main.class).error(org.slf4j.MarkerFactory.getMarker("FILE_ONLY"),
+        "internal error in {}", cl.getCommandSpec().qualifiedName(), e);
+    cl.getErr().println(cl.getCommandSpec().qualifiedName() + ": internal error (" + e
+        + "); nothing half-written was left behind; details are in the log file");
+    cl.getErr().flush();
+    return EXIT_INTERNAL_ERROR;
   }
 
   @Override

@@ -87,6 +87,8 @@ public final class CalibrationChart {
     NumberAxis xAxis = axis("concentration (" + c.unit() + ")", tick, label);
     NumberAxis yAxis = axis("signal", tick, label);
     NumberAxis rAxis = axis("residual", tick, label);
+    rAxis.setUpperMargin(0.15);
+    rAxis.setLowerMargin(0.15);
 
     XYPlot top = new XYPlot();
     top.setRangeAxis(yAxis);

@@ -24,6 +24,8 @@ public final class FlagLegend {
       case NO_VALID_READINGS -> "No reading of the injection was valid for this line.";
       case OVER_CORRECTION -> "Strongly negative (below minus the LOD): the blank may have been over-corrected.";
       case CALIBRATION_FAILED -> "The calibration of this analyte line failed its acceptance rules.";
+      case ICV_FAILED -> "The initial calibration verification (ICV) of this analyte failed: the calibration was not verified.";
+      case ICB_FAILED -> "The initial calibration blank (ICB) of this analyte failed.";
       case CCV_FAILED -> "A bracketing continuing calibration verification (CCV) of this analyte failed.";
       case CCB_FAILED -> "A bracketing continuing calibration blank (CCB) of this analyte failed.";
       case METHOD_BLANK_FAILED -> "The method blank of the preparation batch exceeded its limit.";

@@ -50,7 +50,7 @@ public final class HtmlReport {
       h3 { font-size: 11pt; margin: 1.2em 0 .4em; }
       table { border-collapse: collapse; width: 100%; margin: .4em 0 1em; font-size: 8.5pt; }
       th, td { border: 1px solid var(--line); padding: 2px 4px; text-align: left; vertical-align: top;
-               overflow-wrap: anywhere; }
+               overflow-wrap: break-word; }
       th { background: #eee; font-weight: 600; }
       thead { display: table-header-group; }
       tr { break-inside: avoid; }
@@ -64,9 +64,11 @@ public final class HtmlReport {
       .v-reruns-needed { color: #8a5a00; font-weight: 600; }
       .v-not-evaluated { color: var(--na); }
       .calibration { break-inside: avoid; page-break-inside: avoid; margin-bottom: 1.2em; }
-      .calibration svg { width: 100%; max-width: 160mm; height: auto; display: block; }
-      .side { display: flex; flex-wrap: wrap; gap: 1em; }
-      .side > * { flex: 1 1 20em; }
+      .calibration svg { width: 100%; height: auto; display: block; }
+      .side { display: flex; flex-wrap: wrap; gap: 1em; align-items: flex-start; }
+      .side > * { flex: 1 1 18em; }
+      .side > figure { flex: 3 1 26em; margin: 0; }
+      td.nowrap { white-space: nowrap; }
       .muted { color: #555; }
       @page { margin: 14mm 12mm; }
       @media print {
@@ -202,6 +204,7 @@ public final class HtmlReport {
       if (!c.reasons().isEmpty()) {
         h.append("<p>Why rejected: ").append(Html.escape(String.join("; ", c.reasons()))).append("</p>\n");
       }
+      h.append("<div class=\"side\">\n");
       CalibrationChart.svg(c, anchor + "-plot").ifPresentOrElse(
           svg -> h.append("<figure>\n").append(svg).append("\n<figcaption class=\"muted\">Standards and fitted curve (top), "
               + "residuals y \u2212 fitted (bottom). Crosses mark standards outside the back-calculation limit.</figcaption>\n</figure>\n"),
@@ -220,7 +223,7 @@ public final class HtmlReport {
               .append(s[0]).append("\">").append(Html.cell(v)).append("</td></tr>\n");
         }
       }
-      h.append("</table>\n");
+      h.append("</table>\n</div>\n");
       List<List<Cell>> mine = new ArrayList<>();
       for (List<Cell> l : levels.rows()) {
         if (l.get(levelKey).plain().equals(c.analyteKey())) {
@@ -270,6 +273,11 @@ public final class HtmlReport {
               .append(Html.escape(v.plain())).append("</td>");
         } else if (v instanceof Cell.Num || v instanceof Cell.Whole) {
           h.append("<td class=\"num\">").append(Html.cell(v)).append("</td>");
+        } else if (column.equals("flags")) {
+          // a break opportunity after each separator; the text stays exactly that of results.csv
+          h.append("<td>").append(Html.cell(v).replace(";", ";<wbr>")).append("</td>");
+        } else if (column.equals("line") || column.equals("analyte")) {
+          h.append("<td class=\"nowrap\">").append(Html.cell(v)).append("</td>");
         } else {
           h.append("<td>").append(Html.cell(v)).append("</td>");
         }

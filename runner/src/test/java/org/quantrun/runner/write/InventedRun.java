@@ -141,7 +141,7 @@ public final class InventedRun {
 
   private static AnalyteResult result(InjectionRecord inj, CalibrationResult c) {
     boolean rejected = c.status() == CalibrationStatus.REJECTED;
-    double signal = 300 + inj.position() * 97.3;
+    double signal = inj.role() == SampleRole.ICB ? c.fit().get().coefficient(0) - 40 : 300 + inj.position() * 97.3;
     double solution = (signal - c.fit().get().coefficient(0)) / c.fit().get().coefficient(1);
     double df = inj.dilutionFactor();
     List<ResultFlag> flags = new ArrayList<>();
@@ -153,6 +153,9 @@ public final class InventedRun {
       value = OptionalDouble.empty();
     } else if (solution * df < 1.5) {
       flags.add(ResultFlag.BELOW_LOD);
+      if (solution < 0) {
+        flags.add(ResultFlag.NEGATIVE);
+      }
       reported = "< 1.5";
     } else {
       if (inj.position() == 11) {
