@@ -143,6 +143,53 @@ class EndToEndIT {
     }
   }
 
+  static final Path CHROMIUM = Path.of("/usr/bin/chromium");
+
+  /** Debian's chromium, headless, as root: the flags it needs and a fresh profile folder. */
+  Run chromium(String... args) throws IOException, InterruptedException {
+    Path profile = Files.createTempDirectory(work, "chromium-profile");
+    List<String> cmd = new ArrayList<>(List.of(CHROMIUM.toString(), "--headless", "--no-sandbox", "--disable-gpu",
+        "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync",
+        "--user-data-dir=" + profile));
+    cmd.addAll(List.of(args));
+    Path out = Files.createTempFile(work, "chromium", ".out");
+    Path err = Files.createTempFile(work, "chromium", ".err");
+    Process p = new ProcessBuilder(cmd).directory(work.toFile()).redirectOutput(out.toFile()).redirectError(err.toFile()).start();
+    if (!p.waitFor(120, TimeUnit.SECONDS)) {
+      p.destroyForcibly();
+      throw new AssertionError("chromium did not finish in 120 s");
+    }
+    return new Run(p.exitValue(), Files.readString(out), Files.readString(err));
+  }
+
+  @Test
+  @DisplayName("in a real browser (Debian chromium, when installed) the demo report's tables are those of the CSV files")
+  void browserCheck() throws Exception {
+    org.junit.jupiter.api.Assumptions.assumeTrue(Files.isExecutable(CHROMIUM), "chromium is not installed (.ci/run installs it)");
+    Run demo = quantrun("demo");
+    assertEquals(0, demo.exit(), demo.err());
+    Path report = work.resolve(demo.out().lines().filter(l -> l.startsWith("report:")).findFirst().orElseThrow().substring(7).trim());
+    Path folder = report.getParent();
+    String url = report.toUri().toString();
+    Run dom = chromium("--dump-dom", url);
+    assertEquals(0, dom.exit(), dom.err());
+    Document doc = Jsoup.parse(dom.out());
+    org.quantrun.runner.write.HtmlReportTest.assertTableMatchesCsv(doc.selectFirst("table[data-table=results]"),
+        CsvFiles.records(folder.resolve("results.csv")));
+    org.quantrun.runner.write.HtmlReportTest.assertTableMatchesCsv(doc.selectFirst("table[data-table=qc]"),
+        CsvFiles.records(folder.resolve("qc.csv")));
+    assertEquals(CsvFiles.records(folder.resolve("calibration.csv")).size(), doc.select("section.calibration svg").size());
+    Path png = work.resolve("report.png");
+    Path pdf = work.resolve("report.pdf");
+    assertEquals(0, chromium("--screenshot=" + png, "--window-size=1200,1600", url).exit());
+    assertEquals(0, chromium("--no-pdf-header-footer", "--print-to-pdf=" + pdf, url).exit());
+    byte[] head = Files.readAllBytes(png);
+    assertTrue(head.length > 10_000 && head[1] == 'P' && head[2] == 'N' && head[3] == 'G', "a PNG screenshot");
+    String pdfHead = new String(Files.readAllBytes(pdf), 0, 5, StandardCharsets.ISO_8859_1);
+    assertEquals("%PDF-", pdfHead);
+    assertTrue(Files.size(pdf) > 50_000, "a PDF of several pages");
+  }
+
   static List<List<String>> withoutRunId(List<CSVRecord> rows) {
     List<List<String>> out = new ArrayList<>();
     for (CSVRecord r : rows) {

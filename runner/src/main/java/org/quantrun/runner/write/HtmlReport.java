@@ -276,7 +276,7 @@ public final class HtmlReport {
         } else if (column.equals("flags")) {
           // a break opportunity after each separator; the text stays exactly that of results.csv
           h.append("<td>").append(Html.cell(v).replace(";", ";<wbr>")).append("</td>");
-        } else if (column.equals("line") || column.equals("analyte")) {
+        } else if (column.equals("line") || column.equals("analyte") || column.equals("sample_id")) {
           h.append("<td class=\"nowrap\">").append(Html.cell(v)).append("</td>");
         } else {
           h.append("<td>").append(Html.cell(v)).append("</td>");

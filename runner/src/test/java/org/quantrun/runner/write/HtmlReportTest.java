@@ -21,7 +21,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.quantrun.core.method.ResultFlag;
 import org.quantrun.core.model.RunResult;
 
-class HtmlReportTest {
+public class HtmlReportTest {
   @TempDir static Path dir;
   static Path folder;
   static Document doc;
@@ -40,7 +40,7 @@ class HtmlReportTest {
   }
 
   /** Compares an HTML table with a CSV file, column by column, through the data-column names. */
-  static void assertTableMatchesCsv(Element table, List<CSVRecord> csv) {
+  public static void assertTableMatchesCsv(Element table, List<CSVRecord> csv) {
     List<String> columns = new ArrayList<>();
     for (Element th : table.select("thead th")) {
       columns.add(th.attr("data-column"));
