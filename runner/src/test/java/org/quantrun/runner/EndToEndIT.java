@@ -319,7 +319,7 @@ class EndToEndIT {
         new Solution("DW-2701-0002", "UNK", scaled(sample, 0.5)),
         new Solution("CCV-1", "QC2", m.qc().ccv().standard().trueValues()), new Solution("CCB-1", "QB", Map.of())));
     Path folder = processExample("drinking-water-trace-metals.yaml", seq);
-    // the invented truth: 0.8 x S3 = 40 ug/L of Pb; within 3 % (noise 0.4 % per reading)
+    // the invented truth: 0.8 x S3 = 40 ug/L of Pb; within 3 % (noise 0.4 % per reading; signal / slope, common practice)
     assertEquals(40.0, value(folder, "DW-2701-0001", "Pb 220.353"), 1.2);
   }
 
@@ -360,7 +360,7 @@ class EndToEndIT {
         new Solution("CCV", "CCV", m.qc().ccv().standard().trueValues()), new Solution("CCB", "CCB", Map.of())));
     Path folder = processExample("soil-digest-mg-per-kg.yaml", seq, "--prep", EXAMPLES.resolve("soil-prep-sheet.csv").toString());
     // SO-1101 holds 0.5 x mid = 50 ug/L of Cd in the digest: 50 x 1 x 0.050 L / 0.498 g / 0.731 (prep sheet) mg/kg
-    // (domain formula, section 5: mg/kg = ug/L x DF x V_final[L] / mass[g], dry weight divides by the solids fraction)
+    // (common practice: mg/kg = ug/L x DF x V_final[L] / mass[g]; dry weight divides by the solids fraction)
     double expected = 50 * 1 * 0.050 / 0.498 / 0.731;
     double got = value(folder, "SO-1101", "Cd 228.802");
     assertEquals(expected, got, expected * 0.03, "got " + got + " mg/kg");

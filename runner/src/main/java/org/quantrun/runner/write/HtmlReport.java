@@ -5,6 +5,7 @@ import java.util.EnumSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import org.quantrun.core.method.ReportingRules;
 import org.quantrun.core.method.ResultFlag;
@@ -24,6 +25,7 @@ import org.quantrun.core.qc.Verdict;
  * that comes from the export or the method is HTML-escaped.
  */
 public final class HtmlReport {
+  private static final org.slf4j.Logger LOG = org.slf4j.LoggerFactory.getLogger(HtmlReport.class);
 
   /** The caution every report carries. */
   public static final String CAUTION = "Results can decide whether water is safe to drink or a site is contaminated. "
@@ -205,10 +207,19 @@ public final class HtmlReport {
         h.append("<p>Why rejected: ").append(Html.escape(String.join("; ", c.reasons()))).append("</p>\n");
       }
       h.append("<div class=\"side\">\n");
-      CalibrationChart.svg(c, anchor + "-plot").ifPresentOrElse(
+      Optional<String> plot;
+      try {
+        plot = CalibrationChart.svg(c, anchor + "-plot");
+      } catch (RuntimeException | java.awt.AWTError | LinkageError | InternalError e) {
+        // a machine without fonts for Java's drawing: the numbers below still stand, the report says why there is no plot
+        LOG.warn("the calibration plot of {} could not be drawn: {}", c.analyteKey(), e.toString());
+        plot = Optional.empty();
+        h.append("<p>The plot could not be drawn on this machine (").append(Html.escape(e.toString())).append(").</p>\n");
+      }
+      plot.ifPresentOrElse(
           svg -> h.append("<figure>\n").append(svg).append("\n<figcaption class=\"muted\">Standards and fitted curve (top), "
               + "residuals y \u2212 fitted (bottom). Crosses mark standards outside the back-calculation limit.</figcaption>\n</figure>\n"),
-          () -> h.append("<p>No fit points: nothing to plot.</p>\n"));
+          () -> h.append(c.levels().isEmpty() ? "<p>No fit points: nothing to plot.</p>\n" : ""));
       List<Cell> row = cal.rows().get(i);
       h.append("<table class=\"facts fit\">\n");
       String[][] stats = {{"curve", "curve"}, {"weighting", "weighting"}, {"n", "n"}, {"dof", "degrees of freedom"},

@@ -46,30 +46,4 @@ public record Table(String name, List<String> columns, List<List<Cell>> rows) {
     }
     return i;
   }
-
-  /** Collects the rows of a table. */
-  static final class Builder {
-    private final String name;
-    private final List<String> columns;
-    private final List<List<Cell>> rows = new ArrayList<>();
-
-    Builder(String name, String... columns) {
-      this.name = name;
-      this.columns = List.of(columns);
-    }
-
-    Builder row(Cell... cells) {
-      rows.add(List.of(cells));
-      return this;
-    }
-
-    Builder row(List<Cell> cells) {
-      rows.add(cells);
-      return this;
-    }
-
-    Table build() {
-      return new Table(name, columns, rows);
-    }
-  }
 }

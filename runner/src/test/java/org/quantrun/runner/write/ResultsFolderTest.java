@@ -94,6 +94,23 @@ class ResultsFolderTest {
   }
 
   @Test
+  @DisplayName("a run id from the export never steers where the folder goes; without a usable id the export's name is used")
+  void hostileRunId() throws IOException {
+    RunResult r = InventedRun.run();
+    for (String[] c : new String[][] {{"../../escape", "escape"}, {"///", "run-R2701B"}}) {
+      org.quantrun.core.model.RunInfo info = new org.quantrun.core.model.RunInfo(c[0], "run-R2701B.csv", "delimited", "m", "1",
+          java.util.Map.of());
+      RunResult hostile = new RunResult(info, r.injections(), r.calibrations(), r.results(), r.qc(), r.reruns(), r.verdict(),
+          r.findings());
+      Path input = dir.resolve("in.csv");
+      Files.writeString(input, "x");
+      Path folder = ResultsFolder.write(dir.resolve("out"), hostile, method, EnumSet.of(OutputFormat.CSV), audit(input), CLOCK, "t");
+      assertEquals(dir.resolve("out"), folder.getParent());
+      assertEquals(c[1], folder.getFileName().toString());
+    }
+  }
+
+  @Test
   @DisplayName("--formats csv writes the CSV files and the audit trail only")
   void formatsChooseOutputs() throws IOException {
     Path folder = write(EnumSet.of(OutputFormat.CSV));
