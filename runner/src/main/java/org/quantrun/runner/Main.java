@@ -26,6 +26,7 @@ import picocli.CommandLine.Command;
       org.quantrun.runner.plugins.ImportersCommand.class,
       org.quantrun.runner.process.ProcessCommand.class,
       org.quantrun.runner.process.DemoCommand.class,
+      org.quantrun.runner.generate.GenerateCommand.class,
     })
 public final class Main implements Runnable {
 

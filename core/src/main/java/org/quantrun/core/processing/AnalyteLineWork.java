@@ -1,8 +1,10 @@
 package org.quantrun.core.processing;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import java.util.Objects;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import org.quantrun.core.calibration.BackCalculation;
@@ -52,6 +54,8 @@ final class AnalyteLineWork {
   private OptionalDouble blankSignal = OptionalDouble.empty();
   private Optional<CalibrationFit> fit = Optional.empty();
   private final List<String> rejections = new ArrayList<>();
+  /** True when nothing could be calibrated at all: no line, or no standard holds the analyte. */
+  private boolean notCalibrated;
   private final List<CalibrationLevel> levels = new ArrayList<>();
   private Optional<LimitEstimate> calibrationLimits = Optional.empty();
   private CalibrationResult result;
@@ -86,6 +90,13 @@ final class AnalyteLineWork {
   }
 
   AnalyteLineWork run() {
+    if (Arrays.stream(raw).allMatch(Objects::isNull)) {
+      rejections.add("the export has no line " + analyte.key());
+      notCalibrated = true;
+      finishCalibration();
+      quantify();
+      return this;
+    }
     correct();
     calibrate();
     quantify();
@@ -160,6 +171,7 @@ final class AnalyteLineWork {
     }
     if (sources.isEmpty()) {
       rejections.add("no standard of the run holds " + analyte.name() + " with a valid reading");
+      notCalibrated = true;
       finishCalibration();
       return;
     }
@@ -319,8 +331,21 @@ final class AnalyteLineWork {
     return Optional.empty();
   }
 
+  /** Trace steps shared by every result (the numbers are in the result's own fields). */
+  private static final String[] SIGNAL_STEPS = {
+    "signal: no valid reading", "signal: one valid reading", "signal: mean of 2 valid readings",
+    "signal: mean of 3 valid readings", "signal: mean of 4 valid readings", "signal: mean of 5 valid readings",
+    "signal: mean of more than 5 valid readings"};
+  private static final String QUANTIFIED_WITH_INTERVAL =
+      "x0 read off the curve in the measured solution, with its 95 % interval of the calibration scatter";
+  private static final String QUANTIFIED = "x0 read off the curve in the measured solution (no interval: no degrees of freedom)";
+
   private void quantify() {
     drafts = new Draft[raw.length];
+    String blankStep = blankSignal.isPresent()
+        ? "calibration blank signal " + Text.num(blankSignal.getAsDouble()) + " subtracted" : null;
+    String curveStep = fit.map(f -> "read off the " + f.curve().token() + " curve (weighting " + f.weighting().token()
+        + ", " + f.n() + " points)").orElse("");
     Optional<LimitEstimate> limits = rejections.isEmpty() ? resultLimits() : Optional.empty();
     boolean accepted = result.status() == CalibrationStatus.ACCEPTED;
     double top = analyte.workingRange().map(w -> w.high()).orElseGet(() -> fit.map(CalibrationFit::xMax).orElse(Double.NaN));
@@ -343,11 +368,19 @@ final class AnalyteLineWork {
         d.limitsFrom = Optional.of(l.source());
       });
       d.reportingLimit = analyte.reportingLimit().orElse(limits.map(LimitEstimate::loq).orElse(Double.NaN));
+      if (!accepted) {
+        if (notCalibrated) {
+          d.notReportable("not calibrated: " + String.join("; ", rejections), ResultFlag.NOT_CALIBRATED);
+        } else {
+          d.notReportable("calibration rejected: " + String.join("; ", rejections), ResultFlag.CALIBRATION_FAILED);
+        }
+        continue;
+      }
       if (s == null) {
         d.notReportable("the export has no reading of " + analyte.key() + " for this injection", ResultFlag.NO_VALID_READINGS);
         continue;
       }
-      d.trace.add("signal: mean of " + s.count() + " valid reading" + (s.count() == 1 ? "" : "s") + ", " + Text.num(s.mean()));
+      d.trace.add(SIGNAL_STEPS[Math.min(s.count(), SIGNAL_STEPS.length - 1)]);
       s.excluded().forEach(e -> d.trace.add("left out " + e));
       if (!s.hasValue() && s.markedOverRange()) {
         d.flags.add(ResultFlag.OVER_RANGE);
@@ -371,16 +404,15 @@ final class AnalyteLineWork {
         d.notReportable(p.problem().get(), ResultFlag.NOT_CALIBRATED);
         continue;
       }
-      if (!accepted) {
-        if (fit.isEmpty() && rejections.stream().anyMatch(r -> r.startsWith("no standard"))) {
-          d.notReportable("not calibrated: " + String.join("; ", rejections), ResultFlag.NOT_CALIBRATED);
-        } else {
-          d.notReportable("calibration rejected: " + String.join("; ", rejections), ResultFlag.CALIBRATION_FAILED);
-        }
-        continue;
-      }
       CalibrationFit f = fit.get();
       Signal y = corrected[c.index()];
+      if (isCorrection.active()) {
+        d.trace.add("internal standard " + isCorrection.name() + ": signal x " + Text.num(isCorrection.ratio(c.index())));
+      }
+      if (blankStep != null) {
+        d.trace.add(blankStep);
+      }
+      d.trace.add(curveStep);
       int m = analyte.fitPoints() == FitPoints.READINGS ? y.count() : 1;
       InversePrediction pr = f.predict(y.mean(), m, CONFIDENCE);
       d.position = pr.position();
@@ -396,8 +428,7 @@ final class AnalyteLineWork {
       }
       d.x0 = pr.x0().getAsDouble();
       d.halfWidth = pr.halfWidth().orElse(Double.NaN);
-      d.trace.add("x0 = " + Text.num(d.x0) + " " + analyte.unit().token() + " in the measured solution"
-          + (pr.halfWidth().isPresent() ? " +/- " + Text.num(d.halfWidth) + " (95 %, calibration scatter)" : ""));
+      d.trace.add(pr.halfWidth().isPresent() ? QUANTIFIED_WITH_INTERVAL : QUANTIFIED);
       if (d.x0 > top * (1 + tolerance)) {
         d.flags.add(ResultFlag.OVER_RANGE);
         d.suggestedDilution = DilutionSuggestion.suggest(d.x0, top, DilutionSuggestion.DEFAULT_TARGET_FRACTION);

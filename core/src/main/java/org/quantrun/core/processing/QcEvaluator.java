@@ -84,6 +84,7 @@ final class QcEvaluator {
       if (x == null) {
         continue;
       }
+      replicates(x);
       switch (c.role()) {
         case ICV: {
           Check k = recovery(x, QcKind.ICV, plan.icv());
@@ -281,6 +282,24 @@ final class QcEvaluator {
     }
   }
 
+  /**
+   * Replicate %RSD of the readings, judged from a multiple of the reporting limit up. Only failures
+   * are recorded as QC rows (a passing %RSD on every line of every injection would bury the table);
+   * the flag marks the result.
+   */
+  private void replicates(Draft x) {
+    if (!x.quantified() || x.raw.count() < 2 || Double.isNaN(x.reportingLimit)) {
+      return;
+    }
+    org.quantrun.core.method.ReplicateRule rule = plan.replicates();
+    CheckOutcome o = QcFormulas.replicateRsd(x.x0, x.x0 * x.raw.rsdPercent() / 100, rule.maxRsd(),
+        rule.minMultipleOfRl() * x.reportingLimit);
+    if (o.verdict() == Verdict.FAILED) {
+      x.flags.add(ResultFlag.REPLICATE_RSD_HIGH);
+      record(x, QcKind.REPLICATE_RSD, OptionalDouble.empty(), o);
+    }
+  }
+
   private static CheckOutcome notEvaluated(String unit, Window w, String reason) {
     return new CheckOutcome(OptionalDouble.empty(), unit, w, Verdict.NOT_EVALUATED, Optional.of(reason));
   }
@@ -306,20 +325,17 @@ final class QcEvaluator {
       return;
     }
     boolean standAfterHighBias = ccv && plan.ccv().nonDetectsStandAfterHighBias();
+    int next = 0;
     for (Classified c : injections) {
+      while (next < chain.size() && chain.get(next).index < c.index()) {
+        next++;
+      }
       Draft s = d[c.index()];
       if (s == null || !c.isRealSample()) {
         continue;
       }
-      Check before = null;
-      Check after = null;
-      for (Check k : chain) {
-        if (k.index < c.index()) {
-          before = k;
-        } else if (after == null) {
-          after = k;
-        }
-      }
+      Check before = next > 0 ? chain.get(next - 1) : null;
+      Check after = next < chain.size() ? chain.get(next) : null;
       for (Check k : new Check[] {before, after}) {
         if (k == null || k.verdict != Verdict.FAILED) {
           continue;

@@ -98,6 +98,8 @@ public final class RunProcessor {
     }
     qc.ccvFrequency();
     List<Classified> unbracketed = QcEvaluator.unbracketed(injections);
+    Set<Integer> unbracketedSet = new java.util.HashSet<>();
+    unbracketed.forEach(c -> unbracketedSet.add(c.index()));
 
     List<AnalyteResult> results = new ArrayList<>();
     List<RerunRequest> reruns = new ArrayList<>();
@@ -130,7 +132,7 @@ public final class RunProcessor {
         }
         results.add(ResultWriter.freeze(x, method.reporting()));
         if (c.isRealSample() && x.reportedLine) {
-          rerunOf(x, unbracketed.contains(c)).ifPresent(reruns::add);
+          rerunOf(x, unbracketedSet.contains(c.index())).ifPresent(reruns::add);
         }
       }
     }

@@ -1,0 +1,70 @@
+package org.quantrun.core.processing;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import org.quantrun.core.importer.AnalyteLine;
+import org.quantrun.core.importer.Injection;
+import org.quantrun.core.importer.LineReadings;
+import org.quantrun.core.importer.MetadataEntry;
+import org.quantrun.core.importer.RawRun;
+import org.quantrun.core.importer.Reading;
+import org.quantrun.core.importer.SourcePosition;
+import org.quantrun.core.method.Method;
+import org.quantrun.core.method.MethodException;
+import org.quantrun.core.method.MethodLoader;
+
+/** Builds small runs and methods for processor tests, as an importer would. */
+final class RunBuilder {
+  private final String source;
+  private final List<Injection> injections = new ArrayList<>();
+  private final List<MetadataEntry> metadata = new ArrayList<>();
+  private int line = 2;
+
+  RunBuilder(String source) {
+    this.source = source;
+  }
+
+  RunBuilder meta(String key, String value) {
+    metadata.add(new MetadataEntry(key, value, new SourcePosition(1, 1)));
+    return this;
+  }
+
+  /** An injection whose lines are given as "Analyte line" followed by its readings. */
+  RunBuilder inject(String sampleId, Object... lineThenReadings) {
+    List<LineReadings> lines = new ArrayList<>();
+    int first = line;
+    int i = 0;
+    while (i < lineThenReadings.length) {
+      String[] al = ((String) lineThenReadings[i++]).split(" ", 2);
+      double[] values = (double[]) lineThenReadings[i++];
+      List<Reading> reps = new ArrayList<>();
+      for (double v : values) {
+        reps.add(Double.isNaN(v) ? Reading.invalid("instrument reported \"OVER\"", new SourcePosition(line, 8))
+            : Reading.valid(v, new SourcePosition(line, 8)));
+        line++;
+      }
+      lines.add(new LineReadings(AnalyteLine.of(al[0], al.length > 1 ? al[1] : ""), Optional.of("cps"), reps,
+          Optional.empty(), Optional.empty(), Optional.empty(), new SourcePosition(first, 1)));
+    }
+    injections.add(new Injection(injections.size() + 1, sampleId, Optional.empty(), Optional.empty(), lines,
+        new SourcePosition(first, 1)));
+    return this;
+  }
+
+  RawRun build() {
+    return new RawRun(source, "test", metadata, injections);
+  }
+
+  static double[] r(double... v) {
+    return v;
+  }
+
+  static Method method(String yaml) {
+    try {
+      return MethodLoader.load(yaml, "test.yaml");
+    } catch (MethodException e) {
+      throw new AssertionError(e.getMessage(), e);
+    }
+  }
+}
