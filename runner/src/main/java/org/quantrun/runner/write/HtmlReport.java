@@ -287,7 +287,8 @@ public final class HtmlReport {
         } else if (column.equals("flags")) {
           // a break opportunity after each separator; the text stays exactly that of results.csv
           h.append("<td>").append(Html.cell(v).replace(";", ";<wbr>")).append("</td>");
-        } else if (column.equals("line") || column.equals("analyte") || column.equals("sample_id")) {
+        } else if (column.equals("line") || column.equals("analyte") || (column.equals("sample_id") && v.plain().length() <= 16)) {
+          // short ids and line names stay on one line; a long id may wrap rather than widen the page
           h.append("<td class=\"nowrap\">").append(Html.cell(v)).append("</td>");
         } else {
           h.append("<td>").append(Html.cell(v)).append("</td>");
