@@ -140,7 +140,8 @@ public final class WatchCommand implements Callable<Integer> {
       for (ImporterPlugins.Problem p : loaded.problems()) {
         err.println("quantrun: " + (p.source().endsWith(".jar") ? "plugin skipped: " : "") + p.text());
       }
-      handler = new CoreExportHandler(settings.routes(), loaded);
+      handler = new BatchExportHandler(settings.routes(), loaded, spec.commandLine().getParseResult().originalArgs(),
+          Clock.systemUTC());
     } catch (WatchConfigException e) {
       e.lines().forEach(l -> err.println("quantrun watch: " + l));
       err.flush();

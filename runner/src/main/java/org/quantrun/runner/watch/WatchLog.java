@@ -46,6 +46,8 @@ final class WatchLog {
     SizeBasedTriggeringPolicy<ILoggingEvent> trigger = new SizeBasedTriggeringPolicy<>();
     trigger.setContext(ctx);
     trigger.setMaxFileSize(new FileSize(maxBytes));
+    // look at the size at most every 100 ms (logback's default waits a minute between looks)
+    trigger.setCheckIncrement(ch.qos.logback.core.util.Duration.buildByMilliseconds(100));
     trigger.start();
     PatternLayoutEncoder encoder = new PatternLayoutEncoder();
     encoder.setContext(ctx);

@@ -12,7 +12,8 @@ final class ChildService {
   static Process start(Path inbox, Path out, Path log, String... more) throws IOException {
     List<String> cmd = new ArrayList<>(List.of(
         Path.of(System.getProperty("java.home"), "bin", "java").toString(),
-        "-Xshare:auto", "-XX:TieredStopAtLevel=1", "-Xmx256m",
+        "-Xshare:auto", "-XX:TieredStopAtLevel=1", "-Xmx256m", "-Djava.awt.headless=true",
+        "-Dquantrun.log.dir=" + out.resolveSibling("logs"),
         "-cp", System.getProperty("java.class.path"),
         "org.quantrun.runner.Main", "watch", inbox.toString(),
         "--method", WatchFixture.METHOD.toString(), "--profile", WatchFixture.PROFILE.toString(),

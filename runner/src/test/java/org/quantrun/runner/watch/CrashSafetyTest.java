@@ -34,6 +34,8 @@ import org.quantrun.runner.output.Digests;
 class CrashSafetyTest {
   private static final ObjectMapper JSON = new ObjectMapper();
   private static final int TRIALS = 60;
+  private static final Set<String> EVERY_OUTPUT = Set.copyOf(java.util.Arrays.stream(
+      org.quantrun.runner.write.OutputFormat.values()).flatMap(f -> f.files().stream()).toList());
 
   @TempDir Path root;
 
@@ -201,10 +203,19 @@ class CrashSafetyTest {
     assertEquals(dropped, all, when + ": every input is in exactly one of inbox, archive and failed");
     Map<String, Integer> outputs = new HashMap<>();
     for (String name : WatchFixture.folders(out)) {
-      Path runJson = out.resolve(name).resolve("run.json");
-      assertTrue(Files.isRegularFile(runJson), when + ": results folder " + name + " is not complete");
-      JsonNode n = JSON.readTree(runJson.toFile()); // complete: parses
-      outputs.merge(n.get("source_sha256").asText(), 1, Integer::sum);
+      Path folder = out.resolve(name);
+      // complete: the audit trail lists every output, each there with its recorded size and SHA-256
+      assertTrue(Files.isRegularFile(folder.resolve("audit.json")), when + ": results folder " + name + " has no audit trail");
+      JsonNode audit = JSON.readTree(folder.resolve("audit.json").toFile());
+      Set<String> listed = new HashSet<>();
+      audit.get("outputs").forEach(o -> listed.add(o.get("name").asText()));
+      assertEquals(EVERY_OUTPUT, listed, when + ": " + name + " does not list every output");
+      for (JsonNode o : audit.get("outputs")) {
+        Path f = folder.resolve(o.get("name").asText());
+        assertTrue(Files.isRegularFile(f), when + ": " + name + " lacks " + f.getFileName());
+        assertEquals(o.get("sha256").asText(), Digests.sha256(f), when + ": " + name + "/" + f.getFileName() + " is not whole");
+      }
+      outputs.merge(WatchFixture.exportSha(folder), 1, Integer::sum);
     }
     for (String sha : archived.keySet()) {
       assertEquals(1, outputs.getOrDefault(sha, 0), when + ": an archived input has not exactly one results folder");

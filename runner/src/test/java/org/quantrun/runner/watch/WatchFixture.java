@@ -60,7 +60,7 @@ final class WatchFixture {
   }
 
   static ExportHandler coreHandler(List<Route> routes) throws WatchConfigException {
-    return new CoreExportHandler(routes, ImporterPlugins.load(PLUGINS));
+    return new BatchExportHandler(routes, ImporterPlugins.load(PLUGINS), List.of("watch"), Clock.systemUTC());
   }
 
   /** A service running on its own thread, with the lines it reports. */
@@ -100,6 +100,18 @@ final class WatchFixture {
       }
       Thread.sleep(10);
     }
+  }
+
+  /** The SHA-256 of the export a results folder was made from, read from its audit trail. */
+  static String exportSha(Path folder) throws IOException {
+    com.fasterxml.jackson.databind.JsonNode audit = new com.fasterxml.jackson.databind.ObjectMapper()
+        .readTree(folder.resolve("audit.json").toFile());
+    for (com.fasterxml.jackson.databind.JsonNode in : audit.get("inputs")) {
+      if (in.get("role").asText().equals("export")) {
+        return in.get("sha256").asText();
+      }
+    }
+    throw new AssertionError("no export in the audit trail of " + folder);
   }
 
   /** The regular files under a folder (not following links, not hidden), as paths relative to it. */
