@@ -25,6 +25,8 @@ if [ "$quick" = quick ]; then count=40; latencies=3; else count=300; latencies=7
 export QUANTRUN_LOG_DIR="$work/logs"
 
 now_ms() { date +%s%3N; }
+# CPU time (user + system) the watch process has used, in ms
+cpu_ms() { awk -v hz="$(getconf CLK_TCK)" '{print int(($14 + $15) * 1000 / hz)}' "/proc/$pid/stat"; }
 median() { printf '%s\n' "$@" | sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}'; }
 done_count() { find "$work/out" -mindepth 1 -maxdepth 1 -type d ! -name '.*' | wc -l; }
 # make NAME: a copy of the typical run with its own content, in the staging folder (same file system)
@@ -63,18 +65,21 @@ echo "    median $(median "${lat[@]}") ms, max $(printf '%s\n' "${lat[@]}" | sor
 # ---------------------------------------------------------------- (b) throughput
 before=$(done_count)
 for i in $(seq 1 "$count"); do make "T$i"; done
+c0=$(cpu_ms)
 t0=$(now_ms)
 mv "$work/stage/"T*.csv "$work/inbox/"
 first=""
 while true; do
   n=$(( $(done_count) - before ))
   if [ -z "$first" ] && [ "$n" -ge 1 ]; then first=$(now_ms); fn=$n; fi
-  if [ "$n" -ge "$count" ]; then last=$(now_ms); break; fi
+  if [ "$n" -ge "$count" ]; then last=$(now_ms); c1=$(cpu_ms); break; fi
   sleep 0.02
 done
 echo "(b) $count files dropped at once, every output (CSV, JSON, HTML report, audit):"
 awk -v n="$count" -v fn="$fn" -v a="$first" -v b="$last" -v t0="$t0" 'BEGIN {
   printf "    first results after %d ms (quiet period included), all after %d ms\n", a - t0, b - t0
   printf "    sustained %.1f files/s from the first results folder to the last (goal >= 10 on 2 cores)\n", (n - fn) / ((b - a) / 1000) }'
+awk -v n="$count" -v c="$(( c1 - c0 ))" -v l="$(awk '{print $1}' /proc/loadavg)" -v k="$(nproc)" 'BEGIN {
+  printf "    CPU time of the service: %.0f ms per file, so %.1f files/s on 2 idle cores (load average now %s on %d cores)\n", c / n, 2000 / (c / n), l, k }'
 kill -TERM "$pid"; wait "$pid" || true; pid=""
 grep -c "failed:" "$work/watch.out" | awk '{ if ($1 > 0) print "    (" $1 " files failed: see the watch output)" }'

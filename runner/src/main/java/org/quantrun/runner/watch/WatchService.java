@@ -56,6 +56,9 @@ public final class WatchService {
   private static final String NOTE_CAUTION =
       "Caution: results need review by a qualified analyst; the lab's accredited method and local regulations govern.";
 
+  /** The shortest time between two looks at the inbox when change events wake the service. */
+  private static final long MIN_LOOK_GAP_NANOS = TimeUnit.MILLISECONDS.toNanos(25);
+
   private final WatchSettings s;
   private final ExportHandler handler;
   private final Clock clock;
@@ -164,7 +167,8 @@ public final class WatchService {
       t.setDaemon(true);
       return t;
     });
-    ChangeEvents changes = s.useChangeEvents() ? ChangeEvents.start(s.inbox(), wake) : ChangeEvents.NONE;
+    ChangeEvents changes = s.useChangeEvents() ? ChangeEvents.start(s.inbox(), wake, Set.of(s.archive(), s.failed(), s.out(),
+        s.state())) : ChangeEvents.NONE;
     state = "running";
     LOG.info("watching {} ({} workers, quiet period {} ms, polling every {} ms{}); results go to {}", s.inbox(), s.workers(),
         s.quietPeriod().toMillis(), s.pollInterval().toMillis(), changes.active() ? ", with change events" : "", s.out());
@@ -219,6 +223,11 @@ public final class WatchService {
         }
         try {
           if (wake.poll(Math.max(waitNanos, 1_000_000L), TimeUnit.NANOSECONDS) != null) {
+            // a burst of change events (a copy in progress, files moving to the archive) is one look, not hundreds
+            long since = System.nanoTime() - nowNanos;
+            if (since < MIN_LOOK_GAP_NANOS && !stopping) {
+              TimeUnit.NANOSECONDS.sleep(Math.min(MIN_LOOK_GAP_NANOS - since, waitNanos));
+            }
             wake.clear();
           }
         } catch (InterruptedException e) {
@@ -709,17 +718,19 @@ public final class WatchService {
 
   /** File-system change events, where the file system gives them; polling covers the rest. */
   static class ChangeEvents implements AutoCloseable {
-    static final ChangeEvents NONE = new ChangeEvents(null, null);
+    static final ChangeEvents NONE = new ChangeEvents(null, null, Set.of());
     private final java.nio.file.WatchService watcher;
     private final LinkedBlockingQueue<Boolean> wake;
+    private final Set<Path> skip;
     private final Map<Path, WatchKey> keys = new HashMap<>();
 
-    private ChangeEvents(java.nio.file.WatchService watcher, LinkedBlockingQueue<Boolean> wake) {
+    private ChangeEvents(java.nio.file.WatchService watcher, LinkedBlockingQueue<Boolean> wake, Set<Path> skip) {
       this.watcher = watcher;
       this.wake = wake;
+      this.skip = skip;
     }
 
-    static ChangeEvents start(Path inbox, LinkedBlockingQueue<Boolean> wake) {
+    static ChangeEvents start(Path inbox, LinkedBlockingQueue<Boolean> wake, Set<Path> skip) {
       java.nio.file.WatchService w;
       try {
         w = FileSystems.getDefault().newWatchService();
@@ -727,7 +738,7 @@ public final class WatchService {
         LOG.info("no change events on this file system; polling only ({})", e.getMessage());
         return NONE;
       }
-      ChangeEvents c = new ChangeEvents(w, wake);
+      ChangeEvents c = new ChangeEvents(w, wake, skip);
       Thread t = new Thread(c::pump, "watch-events");
       t.setDaemon(true);
       t.start();
@@ -774,7 +785,7 @@ public final class WatchService {
       }
       try (var entries = Files.newDirectoryStream(dir, Files::isDirectory)) {
         for (Path p : entries) {
-          if (!p.getFileName().toString().startsWith(".")) {
+          if (!p.getFileName().toString().startsWith(".") && !skip.contains(p.toAbsolutePath().normalize())) {
             register(p, depth + 1);
           }
         }
