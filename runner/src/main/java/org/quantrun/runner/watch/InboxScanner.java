@@ -75,6 +75,8 @@ final class InboxScanner {
    */
   boolean ignored(String name) {
     String lower = name.toLowerCase(Locale.ROOT);
+    // common practice: dot-files are hidden or in-progress copies (rsync, editors), ~$ names are
+    // office lock files, .tmp and .part are files still being written by copy and download tools
     if (name.startsWith(".") || name.startsWith("~$") || lower.endsWith(".tmp") || lower.endsWith(".part")) {
       return true;
     }
