@@ -32,8 +32,10 @@ import picocli.CommandLine.Option;
     name = "demo",
     mixinStandardHelpOptions = true,
     description = {
-      "Processes the bundled demo run R2611A (invented data of an invented lab) with its example method",
-      "into ./quantrun-demo/ and prints the report's path and the run verdict."
+      "Processes the bundled demo run into ./quantrun-demo/ and prints the report's path and verdict.",
+      "",
+      "The demo run R2611A (invented data of an invented lab) is processed with its example method "
+          + "config-examples/demo-R2611A.yaml."
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {

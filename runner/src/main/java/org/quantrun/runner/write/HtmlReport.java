@@ -39,8 +39,21 @@ public final class HtmlReport {
    * @param quantrunVersion the quantrun version
    * @param generatedAt when the report was made, ISO-8601 text
    * @param methodDescription the method's description, possibly empty
+   * @param inputs the input files with their SHA-256, as the audit trail records them
    */
-  public record Context(String quantrunVersion, String generatedAt, String methodDescription) {}
+  public record Context(String quantrunVersion, String generatedAt, String methodDescription, List<Audit.InputFile> inputs) {
+    /**
+     * Copies the list.
+     *
+     * @param quantrunVersion the quantrun version
+     * @param generatedAt when the report was made
+     * @param methodDescription the method's description
+     * @param inputs the input files
+     */
+    public Context {
+      inputs = List.copyOf(inputs);
+    }
+  }
 
   private static final String STYLE = """
       :root { --ok: #1b6e31; --bad: #b3261e; --na: #6b6b6b; --line: #c8c8c8; }
@@ -170,6 +183,15 @@ public final class HtmlReport {
       h.append("</table>\n");
     }
     h.append("</div>\n");
+    if (!context.inputs().isEmpty()) {
+      h.append("<table class=\"inputs\" data-table=\"inputs\">\n<caption>Inputs (SHA-256 as in audit.json)</caption>\n"
+          + "<thead><tr><th scope=\"col\">role</th><th scope=\"col\">file</th><th scope=\"col\">SHA-256</th></tr></thead>\n<tbody>\n");
+      for (Audit.InputFile f : context.inputs()) {
+        h.append("<tr><td>").append(Html.escape(f.role())).append("</td><td>").append(Html.escape(f.name()))
+            .append("</td><td><code>").append(Html.escape(f.sha256())).append("</code></td></tr>\n");
+      }
+      h.append("</tbody>\n</table>\n");
+    }
   }
 
   private static void fact(StringBuilder h, String key, String value) {

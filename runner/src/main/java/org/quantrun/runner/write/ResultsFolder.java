@@ -70,7 +70,7 @@ public final class ResultsFolder {
     }
     if (formats.contains(OutputFormat.HTML)) {
       HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
-          method.identity().description());
+          method.identity().description(), audit.inputs());
       files.put("report.html", HtmlReport.render(run, tables, method.reporting(), ctx).getBytes(StandardCharsets.UTF_8));
     }
     try (OutputFolder out = OutputFolder.create(parent, folderName(run))) {
