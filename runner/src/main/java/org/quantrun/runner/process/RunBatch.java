@@ -332,11 +332,20 @@ public final class RunBatch {
   }
 
   private static String host() {
-    try {
-      return InetAddress.getLocalHost().getHostName();
-    } catch (IOException | RuntimeException e) {
-      return Optional.ofNullable(System.getenv("HOSTNAME")).or(() -> Optional.ofNullable(System.getenv("COMPUTERNAME")))
-          .orElse("unknown");
+    return Host.NAME;
+  }
+
+  /** The host name, looked up once: a slow name service must not slow every run. */
+  private static final class Host {
+    static final String NAME = lookUp();
+
+    private static String lookUp() {
+      try {
+        return InetAddress.getLocalHost().getHostName();
+      } catch (IOException | RuntimeException e) {
+        return Optional.ofNullable(System.getenv("HOSTNAME")).or(() -> Optional.ofNullable(System.getenv("COMPUTERNAME")))
+            .orElse("unknown");
+      }
     }
   }
 }
