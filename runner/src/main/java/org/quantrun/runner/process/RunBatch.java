@@ -13,6 +13,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import org.quantrun.core.importer.ImportException;
 import org.quantrun.core.importer.ImportSettings;
 import org.quantrun.core.importer.RawRun;
@@ -171,17 +175,68 @@ public final class RunBatch {
     List<Outcome> outcomes = new ArrayList<>();
     Progress progress = new Progress(err, req.exports().size(), interactive);
     int exit = Main.EXIT_OK;
-    for (Input export : req.exports()) {
-      progress.start(export.name());
-      Outcome o = one(req, p, export, out, err, progress);
-      outcomes.add(o);
-      exit = Math.max(exit, o.exitCode());
-      progress.step();
+    int workers = Math.min(req.exports().size(), Runtime.getRuntime().availableProcessors());
+    if (workers <= 1) {
+      for (Input export : req.exports()) {
+        progress.start(export.name());
+        Outcome o = one(req, p, export, out, err, progress);
+        outcomes.add(o);
+        exit = Math.max(exit, o.exitCode());
+        progress.step();
+      }
+    } else {
+      // several exports: a worker per core; each run's messages are replayed in input order
+      ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
+        Thread t = new Thread(r, "quantrun-run");
+        t.setDaemon(true);
+        return t;
+      });
+      try {
+        List<Future<Buffered>> futures = new ArrayList<>();
+        for (Input export : req.exports()) {
+          futures.add(pool.submit(() -> {
+            java.io.StringWriter o = new java.io.StringWriter();
+            java.io.StringWriter e = new java.io.StringWriter();
+            PrintWriter po = new PrintWriter(o);
+            PrintWriter pe = new PrintWriter(e);
+            Outcome outcome = one(req, p, export, po, pe, new Progress(pe, 1, false));
+            po.flush();
+            pe.flush();
+            return new Buffered(outcome, o.toString(), e.toString());
+          }));
+        }
+        for (int i = 0; i < futures.size(); i++) {
+          progress.start(req.exports().get(i).name());
+          Buffered b = await(futures.get(i));
+          b.out().lines().forEach(l -> progress.println(out, l));
+          b.err().lines().forEach(l -> progress.println(err, l));
+          outcomes.add(b.outcome());
+          exit = Math.max(exit, b.outcome().exitCode());
+          progress.step();
+        }
+      } finally {
+        pool.shutdownNow();
+      }
     }
     progress.finish();
     out.flush();
     err.flush();
     return new Report(exit, outcomes);
+  }
+
+  /** One run's outcome and the messages it printed, kept for printing in input order. */
+  private record Buffered(Outcome outcome, String out, String err) {}
+
+  private static Buffered await(Future<Buffered> f) {
+    try {
+      return f.get();
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException("interrupted while processing", e);
+    } catch (ExecutionException e) {
+      // one() catches everything a run can throw; anything else is an internal error
+      throw new IllegalStateException("a run failed unexpectedly", e.getCause());
+    }
   }
 
   /** Everything read and checked before the first run. */
