@@ -128,11 +128,11 @@ public final class DemoCommand implements Callable<Integer> {
         err.flush();
         return report.exitCode() == 0 ? Main.EXIT_INTERNAL_ERROR : report.exitCode();
       }
-      var result = o.result().get();
-      out.println("Demo run " + result.run().runId() + " (" + d.export.substring(d.export.lastIndexOf('/') + 1) + ", method "
-          + result.run().methodId() + " " + result.run().methodVersion() + ")");
-      out.println("verdict: " + result.verdict().token() + " (" + RunBatch.failures(result) + " QC failures, "
-          + result.reruns().size() + " reruns)");
+      RunBatch.Summary result = o.summary().get();
+      out.println("Demo run " + result.runId() + " (" + d.export.substring(d.export.lastIndexOf('/') + 1) + ", method "
+          + result.methodId() + " " + result.methodVersion() + ")");
+      out.println("verdict: " + result.verdict().token() + " (" + result.failures() + " QC failures, "
+          + result.reruns() + " reruns)");
       out.println("report:  " + o.folder().get().resolve("report.html"));
       out.println("folder:  " + o.folder().get());
       out.println("Caution: invented demo data; real results need review by a qualified analyst.");
