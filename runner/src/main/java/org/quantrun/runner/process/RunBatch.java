@@ -13,6 +13,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import org.quantrun.core.importer.ImportException;
 import org.quantrun.core.importer.ImportSettings;
 import org.quantrun.core.importer.RawRun;
@@ -22,6 +26,7 @@ import org.quantrun.core.method.prep.PrepSheet;
 import org.quantrun.core.method.prep.PrepSheetParser;
 import org.quantrun.core.model.CalibrationStatus;
 import org.quantrun.core.model.RunResult;
+import org.quantrun.core.model.RunVerdict;
 import org.quantrun.core.qc.Verdict;
 import org.quantrun.runner.Main;
 import org.quantrun.runner.MethodFiles;
@@ -109,9 +114,22 @@ public final class RunBatch {
    * @param export the export's file name
    * @param exitCode its exit code (0, 1, 2 or 3)
    * @param folder the published results folder, when processed
-   * @param result the run's result, when processed
+   * @param summary what the run concluded, when processed (the full result is not kept: a batch of
+   *     many runs must not hold them all in memory)
    */
-  public record Outcome(String export, int exitCode, Optional<Path> folder, Optional<RunResult> result) {}
+  public record Outcome(String export, int exitCode, Optional<Path> folder, Optional<Summary> summary) {}
+
+  /**
+   * What a processed run concluded, in short.
+   *
+   * @param runId the run's id
+   * @param methodId the method's id
+   * @param methodVersion the method's version
+   * @param verdict the run's verdict
+   * @param failures failed QC checks plus rejected calibrations
+   * @param reruns how many reruns were requested
+   */
+  public record Summary(String runId, String methodId, String methodVersion, RunVerdict verdict, int failures, int reruns) {}
 
   /**
    * What became of the whole batch.
@@ -171,17 +189,68 @@ public final class RunBatch {
     List<Outcome> outcomes = new ArrayList<>();
     Progress progress = new Progress(err, req.exports().size(), interactive);
     int exit = Main.EXIT_OK;
-    for (Input export : req.exports()) {
-      progress.start(export.name());
-      Outcome o = one(req, p, export, out, err, progress);
-      outcomes.add(o);
-      exit = Math.max(exit, o.exitCode());
-      progress.step();
+    int workers = Math.min(req.exports().size(), Runtime.getRuntime().availableProcessors());
+    if (workers <= 1) {
+      for (Input export : req.exports()) {
+        progress.start(export.name());
+        Outcome o = one(req, p, export, out, err, progress);
+        outcomes.add(o);
+        exit = Math.max(exit, o.exitCode());
+        progress.step();
+      }
+    } else {
+      // several exports: a worker per core; each run's messages are replayed in input order
+      ExecutorService pool = Executors.newFixedThreadPool(workers, r -> {
+        Thread t = new Thread(r, "quantrun-run");
+        t.setDaemon(true);
+        return t;
+      });
+      try {
+        List<Future<Buffered>> futures = new ArrayList<>();
+        for (Input export : req.exports()) {
+          futures.add(pool.submit(() -> {
+            java.io.StringWriter o = new java.io.StringWriter();
+            java.io.StringWriter e = new java.io.StringWriter();
+            PrintWriter po = new PrintWriter(o);
+            PrintWriter pe = new PrintWriter(e);
+            Outcome outcome = one(req, p, export, po, pe, new Progress(pe, 1, false));
+            po.flush();
+            pe.flush();
+            return new Buffered(outcome, o.toString(), e.toString());
+          }));
+        }
+        for (int i = 0; i < futures.size(); i++) {
+          progress.start(req.exports().get(i).name());
+          Buffered b = await(futures.get(i));
+          b.out().lines().forEach(l -> progress.println(out, l));
+          b.err().lines().forEach(l -> progress.println(err, l));
+          outcomes.add(b.outcome());
+          exit = Math.max(exit, b.outcome().exitCode());
+          progress.step();
+        }
+      } finally {
+        pool.shutdownNow();
+      }
     }
     progress.finish();
     out.flush();
     err.flush();
     return new Report(exit, outcomes);
+  }
+
+  /** One run's outcome and the messages it printed, kept for printing in input order. */
+  private record Buffered(Outcome outcome, String out, String err) {}
+
+  private static Buffered await(Future<Buffered> f) {
+    try {
+      return f.get();
+    } catch (InterruptedException e) {
+      Thread.currentThread().interrupt();
+      throw new IllegalStateException("interrupted while processing", e);
+    } catch (ExecutionException e) {
+      // one() catches everything a run can throw; anything else is an internal error
+      throw new IllegalStateException("a run failed unexpectedly", e.getCause());
+    }
   }
 
   /** Everything read and checked before the first run. */
@@ -290,7 +359,8 @@ public final class RunBatch {
           + (failures > 0 ? " (" + failures + (failures == 1 ? " QC failure" : " QC failures") + ")" : "")
           + " -> " + report);
       LOG.info("{}: {} -> {} ({}, exit {})", req.command(), name, folder, result.verdict().token(), code);
-      return new Outcome(name, code, Optional.of(folder), Optional.of(result));
+      return new Outcome(name, code, Optional.of(folder), Optional.of(new Summary(result.run().runId(), result.run().methodId(),
+          result.run().methodVersion(), result.verdict(), failures, result.reruns().size())));
     } catch (MethodFiles.Failure f) {
       f.lines().forEach(l -> progress.println(err, l));
       return new Outcome(name, Main.EXIT_INPUT_ERROR, Optional.empty(), Optional.empty());
@@ -332,11 +402,20 @@ public final class RunBatch {
   }
 
   private static String host() {
-    try {
-      return InetAddress.getLocalHost().getHostName();
-    } catch (IOException | RuntimeException e) {
-      return Optional.ofNullable(System.getenv("HOSTNAME")).or(() -> Optional.ofNullable(System.getenv("COMPUTERNAME")))
-          .orElse("unknown");
+    return Host.NAME;
+  }
+
+  /** The host name, looked up once: a slow name service must not slow every run. */
+  private static final class Host {
+    static final String NAME = lookUp();
+
+    private static String lookUp() {
+      try {
+        return InetAddress.getLocalHost().getHostName();
+      } catch (IOException | RuntimeException e) {
+        return Optional.ofNullable(System.getenv("HOSTNAME")).or(() -> Optional.ofNullable(System.getenv("COMPUTERNAME")))
+            .orElse("unknown");
+      }
     }
   }
 }
