@@ -74,6 +74,7 @@ public final class WatchService {
   private final AtomicInteger failed = new AtomicInteger();
   private final AtomicInteger duplicates = new AtomicInteger();
   private final AtomicInteger left = new AtomicInteger();
+  private final java.util.concurrent.atomic.AtomicLong looks = new java.util.concurrent.atomic.AtomicLong();
   private final AtomicReference<ObjectNode> lastError = new AtomicReference<>();
   private final CountDownLatch finished = new CountDownLatch(1);
   private final Object claimLock = new Object();
@@ -179,6 +180,7 @@ public final class WatchService {
         long nowNanos = System.nanoTime();
         // modification times are judged against the real time of the file system, not the injected clock
         InboxScanner.Scan scan = scanner.scan(nowNanos, System.currentTimeMillis(), busy);
+        looks.incrementAndGet();
         if (scan.inboxPresent() != sawInbox) {
           sawInbox = scan.inboxPresent();
           if (sawInbox) {
@@ -218,8 +220,13 @@ public final class WatchService {
         long waitNanos = s.pollInterval().toNanos();
         waitNanos = Math.min(waitNanos, scan.nextLook().map(Duration::toNanos).orElse(Long.MAX_VALUE));
         waitNanos = Math.min(waitNanos, s.statusInterval().toNanos());
+        long now = System.nanoTime();
+        // a file left in the inbox is looked at again when its time comes; one that went meanwhile is forgotten
+        retryAfter.entrySet().removeIf(e -> e.getValue() - now <= 0 && !Files.exists(e.getKey(), LinkOption.NOFOLLOW_LINKS));
         for (long after : retryAfter.values()) {
-          waitNanos = Math.min(waitNanos, Math.max(after - System.nanoTime(), 1_000_000L));
+          if (after - now > 0) {
+            waitNanos = Math.min(waitNanos, after - now);
+          }
         }
         try {
           if (wake.poll(Math.max(waitNanos, 1_000_000L), TimeUnit.NANOSECONDS) != null) {
@@ -681,6 +688,7 @@ public final class WatchService {
     n.put("duplicates", duplicates.get());
     n.put("left_in_inbox", left.get());
     n.put("processed_ever", journal == null ? 0 : journal.processedCount());
+    n.put("inbox_looks", looks.get());
     ObjectNode e = lastError.get();
     if (e == null) {
       n.putNull("last_error");

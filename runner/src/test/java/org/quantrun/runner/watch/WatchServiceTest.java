@@ -240,6 +240,27 @@ class WatchServiceTest {
   }
 
   @Test
+  @DisplayName("a file left in the inbox that is then taken away by hand is forgotten, and the service goes on at its polling pace")
+  void leftFileTakenAwayIsForgotten() throws Exception {
+    WatchDraft d = WatchFixture.draft(root);
+    d.changeEvents = false;
+    d.poll = Duration.ofMillis(50); // a left file is looked at again after 30 polls: 1.5 s
+    d.failed = root.resolve("blocked/failed");
+    Files.writeString(root.resolve("blocked"), "a file where the failed folder's parent should be");
+    drop(d.inbox, "R18.csv", "not an export at all\n".getBytes(StandardCharsets.UTF_8));
+    try (WatchFixture.Running w = start(d)) {
+      await("left", LONG, () -> w.service.status().path("left_in_inbox").asInt() == 1);
+      Files.delete(d.inbox.resolve("R18.csv"));
+      Thread.sleep(2000); // past the time it was to be looked at again
+      long before = w.service.status().path("inbox_looks").asLong();
+      Thread.sleep(1000);
+      long looks = w.service.status().path("inbox_looks").asLong() - before;
+      // polling every 50 ms and a status rewrite every 100 ms: about 20 looks a second, not one a millisecond
+      assertTrue(looks <= 60, looks + " looks at the inbox in one second");
+    }
+  }
+
+  @Test
   @DisplayName("the inbox may vanish and come back: the service says so, keeps looking, and goes on")
   void inboxVanishesAndReturns() throws Exception {
     WatchDraft d = WatchFixture.draft(root);
