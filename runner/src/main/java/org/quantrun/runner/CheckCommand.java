@@ -1,17 +1,10 @@
 package org.quantrun.runner;
 
-import java.io.IOException;
 import java.io.PrintWriter;
-import java.io.Reader;
 import java.math.BigDecimal;
-import java.nio.charset.CharacterCodingException;
-import java.nio.charset.CodingErrorAction;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.stream.Collectors;
 import org.quantrun.core.calibration.LimitSource;
@@ -20,9 +13,6 @@ import org.quantrun.core.method.CheckStandard;
 import org.quantrun.core.method.DilutionScheme;
 import org.quantrun.core.method.Identification;
 import org.quantrun.core.method.Method;
-import org.quantrun.core.method.MethodException;
-import org.quantrun.core.method.MethodLoader;
-import org.quantrun.core.method.MethodProblem;
 import org.quantrun.core.method.PairRule;
 import org.quantrun.core.method.QcPlan;
 import org.quantrun.core.method.ReportingRules;
@@ -59,47 +49,18 @@ public final class CheckCommand implements Callable<Integer> {
   public Integer call() {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
-    String name = method.getFileName() == null ? method.toString() : method.getFileName().toString();
-    if (!Files.isRegularFile(method)) {
-      err.println("quantrun check: " + method + (Files.exists(method) ? ": is not a file" : ": no such file"));
-      return Main.EXIT_INPUT_ERROR;
-    }
     Method m;
-    try (Reader reader = strictUtf8(method)) {
-      m = MethodLoader.load(reader, name);
-    } catch (MethodException e) {
-      return report(err, name, e.problems());
-    } catch (CharacterCodingException e) {
-      err.println(name + ": the file is not UTF-8 text (expected a UTF-8 YAML method file)");
+    try {
+      m = MethodFiles.load(method, "quantrun check");
+    } catch (MethodFiles.Failure f) {
+      f.lines().forEach(err::println);
+      err.flush();
       return Main.EXIT_INPUT_ERROR;
-    } catch (IOException e) {
-      err.println("quantrun check: " + method + ": cannot be read (" + e.getMessage() + ")");
-      return Main.EXIT_INPUT_ERROR;
-    }
-    Optional<String> profile = m.importSettings().profile();
-    if (profile.isPresent()) {
-      Path dir = method.toAbsolutePath().getParent();
-      if (!Files.isRegularFile(dir.resolve(profile.get()))) {
-        return report(err, name, List.of(new MethodProblem(name, 0, 0, "import.profile",
-            "import profile '" + profile.get() + "' not found beside the method file", Optional.of("a file relative to the method file"))));
-      }
     }
     out.print(summary(m));
-    out.println("OK: " + name + " is a valid method.");
+    out.println("OK: " + MethodFiles.name(method) + " is a valid method.");
     out.flush();
     return 0;
-  }
-
-  private static Reader strictUtf8(Path file) throws IOException {
-    return new java.io.BufferedReader(new java.io.InputStreamReader(Files.newInputStream(file),
-        StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT)));
-  }
-
-  private static int report(PrintWriter err, String name, List<MethodProblem> problems) {
-    problems.forEach(p -> err.println(p));
-    err.println("quantrun check: " + problems.size() + (problems.size() == 1 ? " problem" : " problems") + " in " + name);
-    err.flush();
-    return Main.EXIT_INPUT_ERROR;
   }
 
   // ---- the summary ----

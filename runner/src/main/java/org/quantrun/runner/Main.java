@@ -12,27 +12,71 @@ import picocli.CommandLine.Command;
     mixinStandardHelpOptions = true,
     versionProvider = Main.Version.class,
     description = "Turns the raw export of an instrument run into reportable, QC-checked concentrations.",
+    exitCodeListHeading = "%nExit codes:%n",
+    exitCodeList = {
+      "0:done; for process, every run processed and no QC check failed",
+      "1:process: every run processed, outputs complete, but a QC check failed",
+      "2:bad input or usage (message on stderr; nothing half-written)",
+      "3:internal error (details in the log file)"},
+    footer = {"", "Caution: results need review by a qualified analyst; the lab's accredited method and local regulations govern."},
     subcommands = {
       CommandLine.HelpCommand.class,
       org.quantrun.runner.calibrate.CalibrateCommand.class,
       CheckCommand.class,
       org.quantrun.runner.plugins.ImportersCommand.class,
+      org.quantrun.runner.process.ProcessCommand.class,
+      org.quantrun.runner.process.DemoCommand.class,
+      org.quantrun.runner.generate.GenerateCommand.class,
     })
 public final class Main implements Runnable {
 
+  /** Exit code: done, and (for {@code process}) no QC check failed. */
+  public static final int EXIT_OK = 0;
+  /** Exit code of {@code process}: processed, outputs complete, but a QC check failed. */
+  public static final int EXIT_QC_FAILED = 1;
   /** Exit code for a usage or input-data error. */
   public static final int EXIT_INPUT_ERROR = 2;
+  /** Exit code for an internal error (a bug): details are in the log file. */
+  public static final int EXIT_INTERNAL_ERROR = 3;
 
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
+  /**
+   * Runs the command line and exits with its code.
+   *
+   * @param args the arguments
+   */
   public static void main(String[] args) {
+    System.setProperty("java.awt.headless", "true");
     System.exit(commandLine().execute(args));
+  }
+
+  /**
+   * This quantrun's version, from the jar manifest.
+   *
+   * @return e.g. {@code 0.1.0}, or {@code development build} when run from classes
+   */
+  public static String version() {
+    String v = Main.class.getPackage().getImplementationVersion();
+    return v == null ? "development build" : v;
   }
 
   /** The command line with every sub-command registered; tests execute it directly. */
   public static CommandLine commandLine() {
-    CommandLine cl = new CommandLine(new Main());
+    return commandLine(CommandLine.defaultFactory());
+  }
+
+  /**
+   * The command line with a factory of its own for the sub-commands (tests give commands a
+   * different pipeline or clock this way).
+   *
+   * @param factory makes the command objects
+   * @return the command line
+   */
+  public static CommandLine commandLine(CommandLine.IFactory factory) {
+    CommandLine cl = new CommandLine(new Main(), factory);
     cl.setParameterExceptionHandler(Main::onUsageError);
+    cl.setExecutionExceptionHandler(Main::onInternalError);
     return cl;
   }
 
@@ -42,17 +86,42 @@ public final class Main implements Runnable {
     return EXIT_INPUT_ERROR;
   }
 
+  /** An exception no command handled is a bug: one line for the user, the stack trace to the log file. */
+  private static int onInternalError(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
+    org.slf4j.LoggerFactory.getLogger(Main.class).error(org.slf4j.MarkerFactory.getMarker("FILE_ONLY"),
+        "internal error in {}", cl.getCommandSpec().qualifiedName(), e);
+    cl.getErr().println(cl.getCommandSpec().qualifiedName() + ": internal error (" + e
+        + "); nothing half-written was left behind; details are in the log file");
+    cl.getErr().flush();
+    return EXIT_INTERNAL_ERROR;
+  }
+
   @Override
   public void run() {
     spec.commandLine().usage(spec.commandLine().getOut());
   }
 
-  /** Reads the version from the jar manifest, falling back to "development build". */
+  /**
+   * The version from the jar manifest (or "development build"), the Java runtime, and the importer
+   * plugins found in the default plugins folder.
+   */
   static final class Version implements CommandLine.IVersionProvider {
     @Override
     public String[] getVersion() {
-      String v = Main.class.getPackage().getImplementationVersion();
-      return new String[] {"quantrun " + (v == null ? "development build" : v)};
+      java.util.List<String> lines = new java.util.ArrayList<>();
+      lines.add("quantrun " + version());
+      lines.add("Java " + System.getProperty("java.version") + " (" + System.getProperty("java.vendor") + ")");
+      org.quantrun.runner.plugins.ImporterPlugins.Result plugins =
+          org.quantrun.runner.plugins.ImporterPlugins.load(org.quantrun.runner.plugins.ImporterPlugins.defaultPluginsDir());
+      lines.add("importers (" + plugins.importers().size() + "):");
+      for (org.quantrun.runner.plugins.ImporterPlugins.LoadedImporter li : plugins.importers()) {
+        lines.add("  " + li.importer().id() + " " + li.version() + " (plugin " + li.pluginId()
+            + li.source().map(p -> ", " + p.getFileName()).orElse("") + ")");
+      }
+      for (org.quantrun.runner.plugins.ImporterPlugins.Problem p : plugins.problems()) {
+        lines.add("  skipped: " + p.text());
+      }
+      return lines.toArray(new String[0]);
     }
   }
 }

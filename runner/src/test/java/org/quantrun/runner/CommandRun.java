@@ -9,7 +9,11 @@ public record CommandRun(int exitCode, String out, String err) {
 
   /** Runs {@code quantrun ARGS...} in this JVM and captures what it prints. */
   public static CommandRun of(String... args) {
-    CommandLine cl = Main.commandLine();
+    return of(Main.commandLine(), args);
+  }
+
+  /** Runs a prepared command line in this JVM and captures what it prints. */
+  public static CommandRun of(CommandLine cl, String... args) {
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();
     cl.setOut(new PrintWriter(out, true));

@@ -331,8 +331,21 @@ final class AnalyteLineWork {
     return Optional.empty();
   }
 
+  /** Trace steps shared by every result (the numbers are in the result's own fields). */
+  private static final String[] SIGNAL_STEPS = {
+    "signal: no valid reading", "signal: one valid reading", "signal: mean of 2 valid readings",
+    "signal: mean of 3 valid readings", "signal: mean of 4 valid readings", "signal: mean of 5 valid readings",
+    "signal: mean of more than 5 valid readings"};
+  private static final String QUANTIFIED_WITH_INTERVAL =
+      "x0 read off the curve in the measured solution, with its 95 % interval of the calibration scatter";
+  private static final String QUANTIFIED = "x0 read off the curve in the measured solution (no interval: no degrees of freedom)";
+
   private void quantify() {
     drafts = new Draft[raw.length];
+    String blankStep = blankSignal.isPresent()
+        ? "calibration blank signal " + Text.num(blankSignal.getAsDouble()) + " subtracted" : null;
+    String curveStep = fit.map(f -> "read off the " + f.curve().token() + " curve (weighting " + f.weighting().token()
+        + ", " + f.n() + " points)").orElse("");
     Optional<LimitEstimate> limits = rejections.isEmpty() ? resultLimits() : Optional.empty();
     boolean accepted = result.status() == CalibrationStatus.ACCEPTED;
     double top = analyte.workingRange().map(w -> w.high()).orElseGet(() -> fit.map(CalibrationFit::xMax).orElse(Double.NaN));
@@ -367,7 +380,7 @@ final class AnalyteLineWork {
         d.notReportable("the export has no reading of " + analyte.key() + " for this injection", ResultFlag.NO_VALID_READINGS);
         continue;
       }
-      d.trace.add("signal: mean of " + s.count() + " valid reading" + (s.count() == 1 ? "" : "s") + ", " + Text.num(s.mean()));
+      d.trace.add(SIGNAL_STEPS[Math.min(s.count(), SIGNAL_STEPS.length - 1)]);
       s.excluded().forEach(e -> d.trace.add("left out " + e));
       if (!s.hasValue() && s.markedOverRange()) {
         d.flags.add(ResultFlag.OVER_RANGE);
@@ -396,9 +409,10 @@ final class AnalyteLineWork {
       if (isCorrection.active()) {
         d.trace.add("internal standard " + isCorrection.name() + ": signal x " + Text.num(isCorrection.ratio(c.index())));
       }
-      blankSignal.ifPresent(b -> d.trace.add("calibration blank signal " + Text.num(b) + " subtracted"));
-      d.trace.add("read off the " + f.curve().token() + " curve (weighting " + f.weighting().token() + ", "
-          + f.n() + " points)");
+      if (blankStep != null) {
+        d.trace.add(blankStep);
+      }
+      d.trace.add(curveStep);
       int m = analyte.fitPoints() == FitPoints.READINGS ? y.count() : 1;
       InversePrediction pr = f.predict(y.mean(), m, CONFIDENCE);
       d.position = pr.position();
@@ -414,8 +428,7 @@ final class AnalyteLineWork {
       }
       d.x0 = pr.x0().getAsDouble();
       d.halfWidth = pr.halfWidth().orElse(Double.NaN);
-      d.trace.add("x0 = " + Text.num(d.x0) + " " + analyte.unit().token() + " in the measured solution"
-          + (pr.halfWidth().isPresent() ? " +/- " + Text.num(d.halfWidth) + " (95 %, calibration scatter)" : ""));
+      d.trace.add(pr.halfWidth().isPresent() ? QUANTIFIED_WITH_INTERVAL : QUANTIFIED);
       if (d.x0 > top * (1 + tolerance)) {
         d.flags.add(ResultFlag.OVER_RANGE);
         d.suggestedDilution = DilutionSuggestion.suggest(d.x0, top, DilutionSuggestion.DEFAULT_TARGET_FRACTION);

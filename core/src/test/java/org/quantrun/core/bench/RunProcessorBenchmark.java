@@ -11,6 +11,7 @@ import org.openjdk.jmh.annotations.Fork;
 import org.openjdk.jmh.annotations.Measurement;
 import org.openjdk.jmh.annotations.Mode;
 import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Param;
 import org.openjdk.jmh.annotations.Scope;
 import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
@@ -30,7 +31,8 @@ import org.quantrun.core.processing.RunProcessor;
 /**
  * The run processor on a large run, after import: 2,000 injections x 70 analyte lines x 3
  * readings (420,000 readings), with a calibration blank, five standards, an ICV and a CCV/CCB pair
- * after every ten samples. Goal: under 1 s per run on one core, in a 512 MB heap.
+ * after every ten samples. Goal: under 1 s per run on one core, in a 512 MB heap. The "typical"
+ * size (150 injections x 30 lines) shows the cost of an everyday run.
  *
  * <p>Run: {@code mvn -B -q -pl core test-compile exec:exec@jmh -Dbench=RunProcessorBenchmark}
  */
@@ -42,17 +44,24 @@ import org.quantrun.core.processing.RunProcessor;
 @Fork(value = 1, jvmArgs = {"-Xmx512m", "-Xms512m"})
 @Threads(1)
 public class RunProcessorBenchmark {
-  static final int INJECTIONS = 2000;
-  static final int LINES = 70;
   static final int READINGS = 3;
+
+  /** "large": 2,000 injections x 70 lines; "typical": 150 x 30. */
+  @Param({"large", "typical"})
+  public String size;
+
+  private int injections;
+  private int lines;
 
   private RawRun run;
   private Method method;
 
   @Setup
   public void setUp() throws Exception {
-    method = MethodLoader.load(methodYaml(), "bench.yaml");
-    run = run(new Random(42));
+    injections = size.equals("large") ? 2000 : 150;
+    lines = size.equals("large") ? 70 : 30;
+    method = MethodLoader.load(methodYaml(lines), "bench.yaml");
+    run = run(new Random(42), injections, lines);
   }
 
   @Benchmark
@@ -64,17 +73,17 @@ public class RunProcessorBenchmark {
     return "E" + k;
   }
 
-  static String methodYaml() {
+  static String methodYaml(int lineCount) {
     StringBuilder y = new StringBuilder();
     y.append("method: {id: BENCH, version: \"1\", description: benchmark, unit: ug/L}\nanalytes:\n");
-    for (int k = 0; k < LINES; k++) {
+    for (int k = 0; k < lineCount; k++) {
       y.append("  - {name: ").append(name(k)).append(", line: \"").append(200 + k).append(".000\", weighting: 1/x, mdl: 0.5, reporting-limit: 2}\n");
     }
     y.append("standards:\n");
     double[] levels = {1, 10, 50, 100, 500};
     for (int l = 0; l < levels.length; l++) {
       y.append("  - {level: S").append(l + 1).append(", concentrations: {");
-      for (int k = 0; k < LINES; k++) {
+      for (int k = 0; k < lineCount; k++) {
         y.append(k == 0 ? "" : ", ").append(name(k)).append(": ").append(levels[l]);
       }
       y.append("}}\n");
@@ -95,24 +104,24 @@ public class RunProcessorBenchmark {
     return y.toString();
   }
 
-  static RawRun run(Random rnd) {
+  static RawRun run(Random rnd, int injectionCount, int lineCount) {
     List<String> ids = new ArrayList<>(List.of("BLK", "S1", "S2", "S3", "S4", "S5", "ICV"));
     int sample = 0;
-    while (ids.size() < INJECTIONS) {
-      for (int i = 0; i < 10 && ids.size() < INJECTIONS - 2; i++) {
+    while (ids.size() < injectionCount) {
+      for (int i = 0; i < 10 && ids.size() < injectionCount - 2; i++) {
         ids.add("P" + (++sample));
       }
       ids.add("CCV-" + ids.size());
       ids.add("CCB-" + ids.size());
     }
     double[] conc = {0, 1, 10, 50, 100, 500, 50};
-    List<Injection> injections = new ArrayList<>(INJECTIONS);
+    List<Injection> injections = new ArrayList<>(injectionCount);
     int line = 1;
     for (int j = 0; j < ids.size(); j++) {
       String id = ids.get(j);
       double c = j < conc.length ? conc[j] : id.startsWith("CCV") ? 50 : id.startsWith("CCB") ? 0 : 200 * rnd.nextDouble();
-      List<LineReadings> lines = new ArrayList<>(LINES);
-      for (int k = 0; k < LINES; k++) {
+      List<LineReadings> lines = new ArrayList<>(lineCount);
+      for (int k = 0; k < lineCount; k++) {
         double y = 50 + (100 + k) * c;
         List<Reading> reps = new ArrayList<>(READINGS);
         for (int r = 0; r < READINGS; r++) {

@@ -43,6 +43,10 @@ public final class RunFileImport {
   public static ImportSettings loadProfile(Path profile) throws ImportException {
     String name = profile.getFileName().toString();
     try {
+      if (Files.size(profile) > 4L * ImportProfiles.MAX_CODE_POINTS) {
+        throw new ImportException(name, SourcePosition.UNKNOWN,
+            "the profile is larger than " + ImportProfiles.MAX_CODE_POINTS / 1024 + " KiB and is refused");
+      }
       return ImportProfiles.parse(Files.readString(profile), name);
     } catch (NoSuchFileException e) {
       throw new ImportException(name, SourcePosition.UNKNOWN, "import profile not found");

@@ -32,6 +32,9 @@ public final class PrepSheetParser {
   /** A plain decimal number: no hexadecimal, no NaN or Infinity, no type suffix. */
   private static final java.util.regex.Pattern PLAIN_NUMBER = java.util.regex.Pattern.compile("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
 
+  /** The largest prep sheet accepted, in characters (4 MiB; a sheet of 1,000 samples is about 60 KB). */
+  public static final int MAX_CHARACTERS = 4 << 20;
+
   private PrepSheetParser() {}
 
   /**
@@ -44,6 +47,10 @@ public final class PrepSheetParser {
    * @throws MethodException listing every problem, when the sheet cannot be used
    */
   public static PrepSheet parse(String text, String sourceName, PrepSheetLayout layout) throws MethodException {
+    if (text.length() > MAX_CHARACTERS) {
+      throw new MethodException(List.of(new MethodProblem(sourceName, 0, 0, "", "the prep sheet is larger than "
+          + MAX_CHARACTERS / (1 << 20) + " MiB and is refused", Optional.of("a prep sheet of at most " + MAX_CHARACTERS + " characters"))));
+    }
     List<MethodProblem> problems = new ArrayList<>();
     List<PrepSheetRow> rows = new ArrayList<>();
     String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
