@@ -64,6 +64,9 @@ public final class RunProcessor {
     }
     List<Classified> injections = InjectionClassifier.classify(run, method);
     List<String> findings = new ArrayList<>();
+    method.dilution().factorColumn().ifPresent(col -> findings.add("dilution.factor-column '" + col
+        + "' was not applied: the importers do not pass per-injection columns; every sample got the default factor "
+        + Text.num(method.dilution().defaultFactor()) + " (use a prep sheet for per-sample factors)"));
     SignalTable table = new SignalTable(run, injections);
 
     Map<String, InternalStandardWork> isWorks = new LinkedHashMap<>();

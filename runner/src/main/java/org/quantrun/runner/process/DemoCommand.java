@@ -32,8 +32,10 @@ import picocli.CommandLine.Option;
     name = "demo",
     mixinStandardHelpOptions = true,
     description = {
-      "Processes the bundled demo run R2611A (invented data of an invented lab) with its example method",
-      "into ./quantrun-demo/ and prints the report's path and the run verdict."
+      "Processes the bundled demo run into ./quantrun-demo/ and prints the report's path and verdict.",
+      "",
+      "The demo run R2611A (invented data of an invented lab) is processed with its example method "
+          + "config-examples/demo-R2611A.yaml."
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
@@ -126,11 +128,11 @@ public final class DemoCommand implements Callable<Integer> {
         err.flush();
         return report.exitCode() == 0 ? Main.EXIT_INTERNAL_ERROR : report.exitCode();
       }
-      var result = o.result().get();
-      out.println("Demo run " + result.run().runId() + " (" + d.export.substring(d.export.lastIndexOf('/') + 1) + ", method "
-          + result.run().methodId() + " " + result.run().methodVersion() + ")");
-      out.println("verdict: " + result.verdict().token() + " (" + RunBatch.failures(result) + " QC failures, "
-          + result.reruns().size() + " reruns)");
+      RunBatch.Summary result = o.summary().get();
+      out.println("Demo run " + result.runId() + " (" + d.export.substring(d.export.lastIndexOf('/') + 1) + ", method "
+          + result.methodId() + " " + result.methodVersion() + ")");
+      out.println("verdict: " + result.verdict().token() + " (" + result.failures() + " QC failures, "
+          + result.reruns() + " reruns)");
       out.println("report:  " + o.folder().get().resolve("report.html"));
       out.println("folder:  " + o.folder().get());
       out.println("Caution: invented demo data; real results need review by a qualified analyst.");

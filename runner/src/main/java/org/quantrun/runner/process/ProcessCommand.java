@@ -25,10 +25,11 @@ import picocli.CommandLine.Parameters;
     mixinStandardHelpOptions = true,
     sortOptions = false,
     description = {
-      "Processes instrument exports with a method: one results folder per run (results.csv, results-wide.csv,",
-      "calibration.csv, calibration-levels.csv, qc.csv, reruns.csv, run.json, report.html, audit.json).",
-      "A folder is named from the run's id (else the export's name) and never overwrites an earlier one:",
-      "NAME, NAME-2, NAME-3, ..."
+      "Processes instrument exports with a method into one results folder per run.",
+      "",
+      "Each folder holds results.csv, results-wide.csv, calibration.csv, calibration-levels.csv, qc.csv, reruns.csv, "
+          + "run.json, report.html and audit.json. It is named from the run's id (else the export's name) and never "
+          + "overwrites an earlier folder: NAME, NAME-2, NAME-3, ..."
     },
     exitCodeListHeading = "%nExit codes (for several exports, the highest that applies):%n",
     exitCodeList = {

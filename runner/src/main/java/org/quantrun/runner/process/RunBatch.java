@@ -26,6 +26,7 @@ import org.quantrun.core.method.prep.PrepSheet;
 import org.quantrun.core.method.prep.PrepSheetParser;
 import org.quantrun.core.model.CalibrationStatus;
 import org.quantrun.core.model.RunResult;
+import org.quantrun.core.model.RunVerdict;
 import org.quantrun.core.qc.Verdict;
 import org.quantrun.runner.Main;
 import org.quantrun.runner.MethodFiles;
@@ -113,9 +114,22 @@ public final class RunBatch {
    * @param export the export's file name
    * @param exitCode its exit code (0, 1, 2 or 3)
    * @param folder the published results folder, when processed
-   * @param result the run's result, when processed
+   * @param summary what the run concluded, when processed (the full result is not kept: a batch of
+   *     many runs must not hold them all in memory)
    */
-  public record Outcome(String export, int exitCode, Optional<Path> folder, Optional<RunResult> result) {}
+  public record Outcome(String export, int exitCode, Optional<Path> folder, Optional<Summary> summary) {}
+
+  /**
+   * What a processed run concluded, in short.
+   *
+   * @param runId the run's id
+   * @param methodId the method's id
+   * @param methodVersion the method's version
+   * @param verdict the run's verdict
+   * @param failures failed QC checks plus rejected calibrations
+   * @param reruns how many reruns were requested
+   */
+  public record Summary(String runId, String methodId, String methodVersion, RunVerdict verdict, int failures, int reruns) {}
 
   /**
    * What became of the whole batch.
@@ -349,7 +363,8 @@ public final class RunBatch {
           + (failures > 0 ? " (" + failures + (failures == 1 ? " QC failure" : " QC failures") + ")" : "")
           + " -> " + report);
       LOG.info("{}: {} -> {} ({}, exit {})", req.command(), name, folder, result.verdict().token(), code);
-      return new Outcome(name, code, Optional.of(folder), Optional.of(result));
+      return new Outcome(name, code, Optional.of(folder), Optional.of(new Summary(result.run().runId(), result.run().methodId(),
+          result.run().methodVersion(), result.verdict(), failures, result.reruns().size())));
     } catch (MethodFiles.Failure f) {
       f.lines().forEach(l -> progress.println(err, l));
       return new Outcome(name, Main.EXIT_INPUT_ERROR, Optional.empty(), Optional.empty());
@@ -391,11 +406,20 @@ public final class RunBatch {
   }
 
   private static String host() {
-    try {
-      return InetAddress.getLocalHost().getHostName();
-    } catch (IOException | RuntimeException e) {
-      return Optional.ofNullable(System.getenv("HOSTNAME")).or(() -> Optional.ofNullable(System.getenv("COMPUTERNAME")))
-          .orElse("unknown");
+    return Host.NAME;
+  }
+
+  /** The host name, looked up once: a slow name service must not slow every run. */
+  private static final class Host {
+    static final String NAME = lookUp();
+
+    private static String lookUp() {
+      try {
+        return InetAddress.getLocalHost().getHostName();
+      } catch (IOException | RuntimeException e) {
+        return Optional.ofNullable(System.getenv("HOSTNAME")).or(() -> Optional.ofNullable(System.getenv("COMPUTERNAME")))
+            .orElse("unknown");
+      }
     }
   }
 }

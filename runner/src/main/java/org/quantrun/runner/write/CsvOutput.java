@@ -3,8 +3,7 @@ package org.quantrun.runner.write;
 import java.io.IOException;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.util.ArrayList;
+import java.io.Writer;
 import java.util.List;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVPrinter;
@@ -27,15 +26,8 @@ public final class CsvOutput {
    */
   public static String text(Table table) {
     StringWriter out = new StringWriter();
-    try (CSVPrinter printer = new CSVPrinter(out, CSVFormat.RFC4180)) {
-      printer.printRecord(table.columns().stream().map(SpreadsheetSafe::cell).toList());
-      for (List<Cell> row : table.rows()) {
-        List<String> cells = new ArrayList<>(row.size());
-        for (Cell c : row) {
-          cells.add(c instanceof Cell.Text t ? SpreadsheetSafe.cell(t.text()) : c.plain());
-        }
-        printer.printRecord(cells);
-      }
+    try {
+      write(table, out);
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
@@ -43,12 +35,24 @@ public final class CsvOutput {
   }
 
   /**
-   * The table as UTF-8 bytes of CSV text.
+   * Writes the table as CSV text.
    *
    * @param table the table
-   * @return the bytes
+   * @param out where the text goes (the caller closes it)
+   * @throws IOException if writing fails
    */
-  public static byte[] bytes(Table table) {
-    return text(table).getBytes(StandardCharsets.UTF_8);
+  public static void write(Table table, Writer out) throws IOException {
+    // not closed here: closing the printer would close the caller's writer
+    CSVPrinter printer = new CSVPrinter(out, CSVFormat.RFC4180);
+    printer.printRecord(table.columns().stream().map(SpreadsheetSafe::cell).toList());
+    String[] cells = new String[table.columns().size()];
+    for (List<Cell> row : table.rows()) {
+      for (int i = 0; i < cells.length; i++) {
+        Cell c = row.get(i);
+        cells[i] = c instanceof Cell.Text t ? SpreadsheetSafe.cell(t.text()) : c.plain();
+      }
+      printer.printRecord((Object[]) cells);
+    }
+    printer.flush();
   }
 }

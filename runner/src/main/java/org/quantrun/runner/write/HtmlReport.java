@@ -1,5 +1,9 @@
 package org.quantrun.runner.write;
 
+import java.io.IOException;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
+import java.io.Writer;
 import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.LinkedHashMap;
@@ -39,8 +43,21 @@ public final class HtmlReport {
    * @param quantrunVersion the quantrun version
    * @param generatedAt when the report was made, ISO-8601 text
    * @param methodDescription the method's description, possibly empty
+   * @param inputs the input files with their SHA-256, as the audit trail records them
    */
-  public record Context(String quantrunVersion, String generatedAt, String methodDescription) {}
+  public record Context(String quantrunVersion, String generatedAt, String methodDescription, List<Audit.InputFile> inputs) {
+    /**
+     * Copies the list.
+     *
+     * @param quantrunVersion the quantrun version
+     * @param generatedAt when the report was made
+     * @param methodDescription the method's description
+     * @param inputs the input files
+     */
+    public Context {
+      inputs = List.copyOf(inputs);
+    }
+  }
 
   private static final String STYLE = """
       :root { --ok: #1b6e31; --bad: #b3261e; --na: #6b6b6b; --line: #c8c8c8; }
@@ -94,7 +111,37 @@ public final class HtmlReport {
    * @return the HTML document
    */
   public static String render(RunResult run, ResultTables tables, ReportingRules reporting, Context context) {
-    StringBuilder h = new StringBuilder(1 << 16);
+    StringWriter text = new StringWriter();
+    try {
+      write(text, run, tables, reporting, context);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    return text.toString();
+  }
+
+  /**
+   * Writes the report, streaming: a large run never needs the whole page in memory.
+   *
+   * @param out where the HTML goes
+   * @param run the processed run
+   * @param tables its tables
+   * @param reporting the method's reporting rules (for the flags legend)
+   * @param context how the report was made
+   * @throws IOException if writing fails
+   */
+  public static void write(Writer out, RunResult run, ResultTables tables, ReportingRules reporting, Context context)
+      throws IOException {
+    Sink h = new Sink(out);
+    try {
+      page(h, run, tables, reporting, context);
+      h.flush();
+    } catch (UncheckedIOException e) {
+      throw e.getCause();
+    }
+  }
+
+  private static void page(Sink h, RunResult run, ResultTables tables, ReportingRules reporting, Context context) {
     String runId = Html.escape(run.run().runId());
     h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
         .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
@@ -133,14 +180,47 @@ public final class HtmlReport {
     h.append("<p class=\"muted\">Made by quantrun ").append(Html.escape(context.quantrunVersion())).append(" at ")
         .append(Html.escape(context.generatedAt())).append(". The audit trail (audit.json) records the SHA-256 of every input.</p>\n");
     h.append("</footer>\n</body>\n</html>\n");
-    return h.toString();
   }
 
-  private static void caution(StringBuilder h) {
+  /** Buffered output of the page; a write failure surfaces as {@link UncheckedIOException}. */
+  private static final class Sink {
+    private static final int CHUNK = 1 << 16;
+    private final Writer out;
+    private final StringBuilder buffer = new StringBuilder(CHUNK + 1024);
+
+    Sink(Writer out) {
+      this.out = out;
+    }
+
+    Sink append(String text) {
+      buffer.append(text);
+      if (buffer.length() >= CHUNK) {
+        flush();
+      }
+      return this;
+    }
+
+    Sink append(char c) {
+      buffer.append(c);
+      return this;
+    }
+
+    void flush() {
+      try {
+        out.write(buffer.toString());
+        buffer.setLength(0);
+        out.flush();
+      } catch (IOException e) {
+        throw new UncheckedIOException(e);
+      }
+    }
+  }
+
+  private static void caution(Sink h) {
     h.append("<p class=\"caution\"><strong>Caution.</strong> ").append(Html.escape(CAUTION)).append("</p>\n");
   }
 
-  private static void summary(StringBuilder h, RunResult run, Context context) {
+  private static void summary(Sink h, RunResult run, Context context) {
     h.append("<h2 id=\"summary\">Run summary</h2>\n<div class=\"side\">\n<table class=\"facts\">\n");
     var info = run.run();
     fact(h, "run id", info.runId());
@@ -170,13 +250,22 @@ public final class HtmlReport {
       h.append("</table>\n");
     }
     h.append("</div>\n");
+    if (!context.inputs().isEmpty()) {
+      h.append("<table class=\"inputs\" data-table=\"inputs\">\n<caption>Inputs (SHA-256 as in audit.json)</caption>\n"
+          + "<thead><tr><th scope=\"col\">role</th><th scope=\"col\">file</th><th scope=\"col\">SHA-256</th></tr></thead>\n<tbody>\n");
+      for (Audit.InputFile f : context.inputs()) {
+        h.append("<tr><td>").append(Html.escape(f.role())).append("</td><td>").append(Html.escape(f.name()))
+            .append("</td><td><code>").append(Html.escape(f.sha256())).append("</code></td></tr>\n");
+      }
+      h.append("</tbody>\n</table>\n");
+    }
   }
 
-  private static void fact(StringBuilder h, String key, String value) {
+  private static void fact(Sink h, String key, String value) {
     h.append("<tr><th scope=\"row\">").append(Html.escape(key)).append("</th><td>").append(Html.escape(value)).append("</td></tr>\n");
   }
 
-  private static void findings(StringBuilder h, RunResult run) {
+  private static void findings(Sink h, RunResult run) {
     if (run.findings().isEmpty()) {
       return;
     }
@@ -187,7 +276,7 @@ public final class HtmlReport {
     h.append("</ul>\n");
   }
 
-  private static void calibrations(StringBuilder h, RunResult run, ResultTables tables) {
+  private static void calibrations(Sink h, RunResult run, ResultTables tables) {
     h.append("<h2 id=\"calibrations\">Calibrations</h2>\n");
     if (run.calibrations().isEmpty()) {
       h.append("<p>No analyte lines.</p>\n");
@@ -258,7 +347,7 @@ public final class HtmlReport {
     return new Col(column, label);
   }
 
-  private static void section(StringBuilder h, String id, String title, Table t, List<Col> cols, String none) {
+  private static void section(Sink h, String id, String title, Table t, List<Col> cols, String none) {
     h.append("<h2 id=\"").append(id).append("\">").append(Html.escape(title)).append("</h2>\n");
     if (t.rows().isEmpty()) {
       h.append("<p>").append(Html.escape(none)).append("</p>\n");
@@ -267,7 +356,7 @@ public final class HtmlReport {
     table(h, t, cols, id);
   }
 
-  private static void table(StringBuilder h, Table t, List<Col> cols, String cssClass) {
+  private static void table(Sink h, Table t, List<Col> cols, String cssClass) {
     int[] idx = cols.stream().mapToInt(c -> t.column(c.column())).toArray();
     h.append("<table class=\"").append(cssClass).append("\" data-table=\"").append(t.name()).append("\">\n<thead><tr>");
     for (Col c : cols) {
@@ -299,7 +388,7 @@ public final class HtmlReport {
     h.append("</tbody>\n</table>\n");
   }
 
-  private static void legend(StringBuilder h, RunResult run, ReportingRules reporting) {
+  private static void legend(Sink h, RunResult run, ReportingRules reporting) {
     h.append("<h2 id=\"flags\">Flags legend</h2>\n");
     Set<ResultFlag> used = EnumSet.noneOf(ResultFlag.class);
     for (AnalyteResult r : run.results()) {

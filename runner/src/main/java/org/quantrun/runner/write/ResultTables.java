@@ -91,18 +91,17 @@ public record ResultTables(
   }
 
   private static Table results(RunResult run, ReportingRules reporting) {
-    List<List<Cell>> rows = new ArrayList<>();
     String runId = run.run().runId();
-    for (AnalyteResult r : run.results()) {
-      rows.add(List.of(Cell.of(runId), Cell.of(r.position()), Cell.of(r.sampleId()), token(r.role()),
+    List<AnalyteResult> results = run.results();
+    return Table.computed("results", RESULT_COLUMNS, results.size(), i -> {
+      AnalyteResult r = results.get(i);
+      return List.of(Cell.of(runId), Cell.of(r.position()), Cell.of(r.sampleId()), token(r.role()),
           Cell.of(r.analyte()), Cell.ofText(r.line()), Cell.of(r.value()), Cell.of(r.reported()), Cell.of(r.unit()),
           Cell.of(r.ciHalfWidth()), Cell.of(r.lod()), Cell.of(r.loq()), Cell.of(r.dilutionFactor()),
           Cell.of(flagText(r.flags(), reporting)), Cell.of(r.signalMean()), Cell.of(r.signalRsdPct()),
           Cell.of(r.replicates()), Cell.ofText(r.limitsFrom().map(Token::token)), Cell.of(r.analyteKey()),
-          Cell.of(r.reportedLine()), Cell.of(r.solutionConcentration()),
-          Cell.of(r.suggestedDilution())));
-    }
-    return new Table("results", RESULT_COLUMNS, rows);
+          Cell.of(r.reportedLine()), Cell.of(r.solutionConcentration()), Cell.of(r.suggestedDilution()));
+    });
   }
 
   private static Table wide(RunResult run) {
@@ -200,32 +199,32 @@ public record ResultTables(
   }
 
   private static Table qc(RunResult run) {
-    List<List<Cell>> rows = new ArrayList<>();
-    for (QcCheck q : run.qc()) {
-      rows.add(List.of(Cell.of(q.position()), Cell.of(q.sampleId()), token(q.check()), Cell.of(q.analyteKey()),
+    List<QcCheck> qc = run.qc();
+    return Table.computed("qc", QC_COLUMNS, qc.size(), i -> {
+      QcCheck q = qc.get(i);
+      return List.of(Cell.of(q.position()), Cell.of(q.sampleId()), token(q.check()), Cell.of(q.analyteKey()),
           Cell.of(q.measured()), Cell.of(q.expected()), Cell.of(q.result()), Cell.of(q.unitOfResult()),
-          Cell.of(q.windowLow()), Cell.of(q.windowHigh()), token(q.verdict()), Cell.ofText(q.reason())));
-    }
-    return new Table("qc", QC_COLUMNS, rows);
+          Cell.of(q.windowLow()), Cell.of(q.windowHigh()), token(q.verdict()), Cell.ofText(q.reason()));
+    });
   }
 
   private static Table reruns(RunResult run) {
-    List<List<Cell>> rows = new ArrayList<>();
-    for (RerunRequest r : run.reruns()) {
-      rows.add(List.of(Cell.of(r.position()), Cell.of(r.sampleId()), Cell.of(r.analyteKey()), Cell.of(r.reason()),
-          Cell.of(r.dilution())));
-    }
-    return new Table("reruns", RERUN_COLUMNS, rows);
+    List<RerunRequest> reruns = run.reruns();
+    return Table.computed("reruns", RERUN_COLUMNS, reruns.size(), i -> {
+      RerunRequest r = reruns.get(i);
+      return List.of(Cell.of(r.position()), Cell.of(r.sampleId()), Cell.of(r.analyteKey()), Cell.of(r.reason()),
+          Cell.of(r.dilution()));
+    });
   }
 
   private static Table injections(RunResult run) {
-    List<List<Cell>> rows = new ArrayList<>();
-    for (InjectionRecord i : run.injections()) {
-      rows.add(List.of(Cell.of(i.position()), Cell.of(i.sampleId()), token(i.role()), Cell.ofText(i.level()),
+    List<InjectionRecord> injections = run.injections();
+    return Table.computed("injections", INJECTION_COLUMNS, injections.size(), n -> {
+      InjectionRecord i = injections.get(n);
+      return List.of(Cell.of(i.position()), Cell.of(i.sampleId()), token(i.role()), Cell.ofText(i.level()),
           Cell.ofText(i.parentSampleId()), Cell.ofText(i.prepBatch()), Cell.of(i.dilutionFactor()),
-          Cell.ofText(i.timestamp()), Cell.of(i.identifiedBy())));
-    }
-    return new Table("injections", INJECTION_COLUMNS, rows);
+          Cell.ofText(i.timestamp()), Cell.of(i.identifiedBy()));
+    });
   }
 
   private static Cell token(Token t) {

@@ -1,14 +1,15 @@
 package org.quantrun.runner.write;
 
+import java.io.BufferedOutputStream;
 import java.io.IOException;
+import java.io.OutputStream;
+import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.Set;
 import org.quantrun.core.method.Method;
 import org.quantrun.core.model.RunResult;
@@ -56,30 +57,39 @@ public final class ResultsFolder {
   public static Path write(Path parent, RunResult run, Method method, Set<OutputFormat> formats, Audit audit,
       Clock clock, String quantrunVersion) throws IOException {
     ResultTables tables = ResultTables.of(run, method.reporting());
-    Map<String, byte[]> files = new LinkedHashMap<>();
-    if (formats.contains(OutputFormat.CSV)) {
-      files.put("results.csv", CsvOutput.bytes(tables.results()));
-      files.put("results-wide.csv", CsvOutput.bytes(tables.resultsWide()));
-      files.put("calibration.csv", CsvOutput.bytes(tables.calibration()));
-      files.put("calibration-levels.csv", CsvOutput.bytes(tables.calibrationLevels()));
-      files.put("qc.csv", CsvOutput.bytes(tables.qc()));
-      files.put("reruns.csv", CsvOutput.bytes(tables.reruns()));
-    }
-    if (formats.contains(OutputFormat.JSON)) {
-      files.put("run.json", RunJson.bytes(run, tables));
-    }
-    if (formats.contains(OutputFormat.HTML)) {
-      HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
-          method.identity().description());
-      files.put("report.html", HtmlReport.render(run, tables, method.reporting(), ctx).getBytes(StandardCharsets.UTF_8));
-    }
     try (OutputFolder out = OutputFolder.create(parent, folderName(run))) {
-      List<Audit.OutputFile> written = new ArrayList<>();
-      for (Map.Entry<String, byte[]> f : files.entrySet()) {
-        Files.write(out.staging().resolve(f.getKey()), f.getValue());
-        written.add(new Audit.OutputFile(f.getKey(), Digests.sha256(f.getValue()), f.getValue().length));
+      Path dir = out.staging();
+      List<String> names = new ArrayList<>();
+      if (formats.contains(OutputFormat.CSV)) {
+        for (Table t : List.of(tables.results(), tables.resultsWide(), tables.calibration(), tables.calibrationLevels(),
+            tables.qc(), tables.reruns())) {
+          String name = t.name() + ".csv";
+          try (Writer w = Files.newBufferedWriter(dir.resolve(name), StandardCharsets.UTF_8)) {
+            CsvOutput.write(t, w);
+          }
+          names.add(name);
+        }
       }
-      Files.write(out.staging().resolve(AUDIT), audit.json(clock.instant(), written));
+      if (formats.contains(OutputFormat.JSON)) {
+        try (OutputStream o = new BufferedOutputStream(Files.newOutputStream(dir.resolve("run.json")), 1 << 16)) {
+          RunJson.write(run, tables, o);
+        }
+        names.add("run.json");
+      }
+      if (formats.contains(OutputFormat.HTML)) {
+        HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
+            method.identity().description(), audit.inputs());
+        try (Writer w = Files.newBufferedWriter(dir.resolve("report.html"), StandardCharsets.UTF_8)) {
+          HtmlReport.write(w, run, tables, method.reporting(), ctx);
+        }
+        names.add("report.html");
+      }
+      List<Audit.OutputFile> written = new ArrayList<>();
+      for (String name : names) {
+        Path f = dir.resolve(name);
+        written.add(new Audit.OutputFile(name, Digests.sha256(f), Files.size(f)));
+      }
+      Files.write(dir.resolve(AUDIT), audit.json(clock.instant(), written));
       return out.publish();
     }
   }

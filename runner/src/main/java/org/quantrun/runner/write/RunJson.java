@@ -1,11 +1,13 @@
 package org.quantrun.runner.write;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.JsonEncoding;
+import com.fasterxml.jackson.core.JsonGenerator;
+import com.fasterxml.jackson.core.JsonStreamContext;
+import com.fasterxml.jackson.core.util.MinimalPrettyPrinter;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.nio.charset.StandardCharsets;
+import java.io.IOException;
+import java.io.OutputStream;
 import java.util.List;
 import org.quantrun.core.Token;
 import org.quantrun.core.model.AnalyteResult;
@@ -16,7 +18,9 @@ import org.quantrun.core.model.RunResult;
  * Writes {@code run.json}: everything the CSV files hold, machine-readable, plus what CSV cannot
  * hold well (run metadata, findings, each result's flags by quantrun's own names and its trace,
  * each calibration's levels and trace). Each table becomes an array of objects keyed by the CSV
- * column names; an absent value is {@code null}; numbers keep full double precision.
+ * column names, one object per line; an absent value is {@code null}; numbers keep full double
+ * precision. Written with Jackson's streaming generator, so a large run never needs the whole
+ * document in memory.
  */
 public final class RunJson {
   /** The value of the top-level {@code format} key. */
@@ -29,94 +33,168 @@ public final class RunJson {
   private RunJson() {}
 
   /**
-   * The run as JSON.
+   * Writes the run as JSON (UTF-8).
    *
    * @param run the processed run
    * @param tables its tables
-   * @return UTF-8 bytes of the JSON document
+   * @param out where the JSON goes (the caller closes it)
+   * @throws IOException if writing fails
    */
-  public static byte[] bytes(RunResult run, ResultTables tables) {
-    ObjectNode root = MAPPER.createObjectNode();
-    root.put("format", FORMAT);
-    root.put("format_version", FORMAT_VERSION);
-    ObjectNode info = root.putObject("run");
-    info.put("run_id", run.run().runId());
-    info.put("source_name", run.run().sourceName());
-    info.put("importer_id", run.run().importerId());
-    info.put("method_id", run.run().methodId());
-    info.put("method_version", run.run().methodVersion());
-    ObjectNode metadata = info.putObject("metadata");
-    run.run().metadata().forEach(metadata::put);
-    root.put("verdict", run.verdict().token());
-    strings(root.putArray("findings"), run.findings());
+  public static void write(RunResult run, ResultTables tables, OutputStream out) throws IOException {
+    JsonGenerator g = MAPPER.getFactory().createGenerator(out, JsonEncoding.UTF8);
+    g.disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
+    g.setPrettyPrinter(new RecordPerLine());
+    g.writeStartObject();
+    g.writeStringField("format", FORMAT);
+    g.writeNumberField("format_version", FORMAT_VERSION);
+    g.writeObjectFieldStart("run");
+    g.writeStringField("run_id", run.run().runId());
+    g.writeStringField("source_name", run.run().sourceName());
+    g.writeStringField("importer_id", run.run().importerId());
+    g.writeStringField("method_id", run.run().methodId());
+    g.writeStringField("method_version", run.run().methodVersion());
+    g.writeObjectFieldStart("metadata");
+    for (var e : run.run().metadata().entrySet()) {
+      g.writeStringField(e.getKey(), e.getValue());
+    }
+    g.writeEndObject();
+    g.writeEndObject();
+    g.writeStringField("verdict", run.verdict().token());
+    strings(g, "findings", run.findings());
 
-    array(root, "injections", tables.injections());
-    ArrayNode calibrations = array(root, "calibrations", tables.calibration());
+    array(g, "injections", tables.injections());
+
+    Table cal = tables.calibration();
+    Table levels = tables.calibrationLevels();
+    int key = levels.column("analyte_key");
+    g.writeArrayFieldStart("calibrations");
     for (int i = 0; i < run.calibrations().size(); i++) {
       CalibrationResult c = run.calibrations().get(i);
-      ObjectNode o = (ObjectNode) calibrations.get(i);
-      strings(o.putArray("reasons"), c.reasons());
-      strings(o.putArray("trace"), c.trace());
-      ArrayNode levels = o.putArray("levels");
-      int key = tables.calibrationLevels().column("analyte_key");
-      for (List<Cell> row : tables.calibrationLevels().rows()) {
+        g.writeStartObject();
+      fields(g, cal.columns(), cal.rows().get(i));
+      strings(g, "reasons", c.reasons());
+      strings(g, "trace", c.trace());
+      g.writeArrayFieldStart("levels");
+      for (List<Cell> row : levels.rows()) {
         if (row.get(key).plain().equals(c.analyteKey())) {
-          levels.add(object(tables.calibrationLevels().columns(), row));
+          g.writeStartObject();
+          fields(g, levels.columns(), row);
+          g.writeEndObject();
         }
       }
+      g.writeEndArray();
+      g.writeEndObject();
     }
-    ArrayNode results = array(root, "results", tables.results());
+    g.writeEndArray();
+
+    Table results = tables.results();
+    g.writeArrayFieldStart("results");
     for (int i = 0; i < run.results().size(); i++) {
       AnalyteResult r = run.results().get(i);
-      ObjectNode o = (ObjectNode) results.get(i);
-      strings(o.putArray("flag_names"), r.flags().stream().map(Token::token).toList());
-      strings(o.putArray("trace"), r.trace());
+        g.writeStartObject();
+      fields(g, results.columns(), results.rows().get(i));
+      strings(g, "flag_names", r.flags().stream().map(Token::token).toList());
+      strings(g, "trace", r.trace());
+      g.writeEndObject();
     }
-    array(root, "results_wide", tables.resultsWide());
-    array(root, "qc", tables.qc());
-    array(root, "reruns", tables.reruns());
-    try {
-      return MAPPER.writeValueAsString(root).concat("\n").getBytes(StandardCharsets.UTF_8);
-    } catch (JsonProcessingException e) {
-      throw new IllegalStateException("cannot write run.json", e);
+    g.writeEndArray();
+    array(g, "results_wide", tables.resultsWide());
+    array(g, "qc", tables.qc());
+    array(g, "reruns", tables.reruns());
+    g.writeEndObject();
+    g.writeRaw('\n');
+    g.flush();
+  }
+
+  /**
+   * Compact JSON with a line break after each top-level key and each record of a top-level array,
+   * so that every record is one line.
+   */
+  private static final class RecordPerLine extends MinimalPrettyPrinter {
+    private static final long serialVersionUID = 1L;
+
+    private static boolean topLevelArray(JsonGenerator g) {
+      JsonStreamContext c = g.getOutputContext();
+      return c.inArray() && c.getParent() != null && c.getParent().inObject() && c.getParent().getParent() != null
+          && c.getParent().getParent().inRoot();
+    }
+
+    private static boolean rootObject(JsonGenerator g) {
+      JsonStreamContext c = g.getOutputContext();
+      return c.inObject() && c.getParent() != null && c.getParent().inRoot();
+    }
+
+    @Override
+    public void writeObjectEntrySeparator(JsonGenerator g) throws IOException {
+      g.writeRaw(rootObject(g) ? ",\n" : ",");
+    }
+
+    @Override
+    public void beforeArrayValues(JsonGenerator g) throws IOException {
+      if (topLevelArray(g)) {
+        g.writeRaw('\n');
+      }
+    }
+
+    @Override
+    public void writeArrayValueSeparator(JsonGenerator g) throws IOException {
+      g.writeRaw(topLevelArray(g) ? ",\n" : ",");
+    }
+
+    @Override
+    public void writeEndArray(JsonGenerator g, int values) throws IOException {
+      if (topLevelArray(g) && values > 0) {
+        g.writeRaw('\n');
+      }
+      g.writeRaw(']');
+    }
+
+    @Override
+    public void writeEndObject(JsonGenerator g, int entries) throws IOException {
+      if (rootObject(g)) {
+        g.writeRaw('\n');
+      }
+      g.writeRaw('}');
     }
   }
 
-  private static ArrayNode array(ObjectNode root, String key, Table table) {
-    ArrayNode a = root.putArray(key);
+  private static void array(JsonGenerator g, String key, Table table) throws IOException {
+    g.writeArrayFieldStart(key);
     for (List<Cell> row : table.rows()) {
-      a.add(object(table.columns(), row));
+        g.writeStartObject();
+      fields(g, table.columns(), row);
+      g.writeEndObject();
     }
-    return a;
+    g.writeEndArray();
   }
 
-  static ObjectNode object(List<String> columns, List<Cell> row) {
-    ObjectNode o = MAPPER.createObjectNode();
+  private static void fields(JsonGenerator g, List<String> columns, List<Cell> row) throws IOException {
     for (int i = 0; i < columns.size(); i++) {
-      put(o, columns.get(i), row.get(i));
-    }
-    return o;
-  }
-
-  private static void put(ObjectNode o, String key, Cell c) {
-    if (c instanceof Cell.Text t) {
-      o.put(key, t.text());
-    } else if (c instanceof Cell.Num n) {
-      o.put(key, n.value());
-    } else if (c instanceof Cell.Whole w) {
-      o.put(key, w.value());
-    } else if (c instanceof Cell.Bool b) {
-      o.put(key, b.value());
-    } else {
-      o.putNull(key);
+      String k = columns.get(i);
+      Cell c = row.get(i);
+      if (c instanceof Cell.Text t) {
+        g.writeStringField(k, t.text());
+      } else if (c instanceof Cell.Num n) {
+        g.writeNumberField(k, n.value());
+      } else if (c instanceof Cell.Whole w) {
+        g.writeNumberField(k, w.value());
+      } else if (c instanceof Cell.Bool b) {
+        g.writeBooleanField(k, b.value());
+      } else {
+        g.writeNullField(k);
+      }
     }
   }
 
-  private static void strings(ArrayNode a, List<String> values) {
-    values.forEach(a::add);
+  private static void strings(JsonGenerator g, String key, List<String> values) throws IOException {
+    g.writeArrayFieldStart(key);
+    for (String v : values) {
+      g.writeString(v);
+    }
+    g.writeEndArray();
   }
 
-  /** The shared mapper, configured for indented output. */
+  /** The shared mapper, configured for indented output (the audit trail uses it). */
   static ObjectMapper mapper() {
     return MAPPER;
   }

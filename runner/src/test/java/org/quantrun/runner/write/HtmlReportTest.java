@@ -134,6 +134,9 @@ public class HtmlReportTest {
     assertEquals(ResultFlag.values().length, legend.select("tbody tr").size());
     assertTrue(legend.text().contains("ND below-lod"), "the lab's code beside quantrun's flag name");
     assertEquals(2, doc.select("p.caution").size());
+    // FIPS 180-2, appendix B.1: SHA-256("abc"), the invented export's content
+    assertTrue(doc.selectFirst("table[data-table=inputs]").text()
+        .contains("export run-R2701B.csv ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad"));
     assertTrue(doc.selectFirst("p.caution").text().contains("qualified analyst"));
     assertTrue(doc.selectFirst("p.caution").text().contains("accredited method"));
   }
