@@ -88,11 +88,15 @@ public final class BlockImporter implements RunImporter {
         }
         if (l.startsWith("#")) {
           int colon = l.indexOf(':');
-          if (colon > 1) {
-            metadata.add(new MetadataEntry(l.substring(1, colon).strip(), l.substring(colon + 1).strip(),
-                SourcePosition.ofLine(lineNo)));
+          String key = colon > 1 ? l.substring(1, colon).strip() : "";
+          if (!key.isEmpty()) {
+            metadata.add(new MetadataEntry(key, l.substring(colon + 1).strip(), SourcePosition.ofLine(lineNo)));
           }
         } else if (l.startsWith("[") && l.endsWith("]") && l.length() > 2) {
+          String sampleId = l.substring(1, l.length() - 1).strip();
+          if (sampleId.isEmpty()) {
+            throw new ImportException(sourceName, new SourcePosition(lineNo, 1), "the sample id between [ and ] is empty");
+          }
           if (block != null) {
             injections.add(block.build(sourceName, injections.size() + 1));
           }
@@ -100,7 +104,7 @@ public final class BlockImporter implements RunImporter {
             throw new ImportException(sourceName, SourcePosition.ofLine(lineNo), "the export has more than "
                 + settings.maxInjections() + " injections (max_injections in the import profile)");
           }
-          block = new Block(l.substring(1, l.length() - 1).strip(), lineNo);
+          block = new Block(sampleId, lineNo);
         } else {
           if (block == null) {
             throw new ImportException(sourceName, new SourcePosition(lineNo, 1), "expected a [sample id] line first");
