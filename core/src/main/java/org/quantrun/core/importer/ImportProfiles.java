@@ -83,6 +83,9 @@ public final class ImportProfiles {
       throw new ImportException(sourceName, position(m), "not valid YAML: " + what.strip(), e);
     } catch (YAMLException e) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, refusal(e.getMessage()), e);
+    } catch (IllegalArgumentException e) {
+      // SnakeYAML refuses some malformed tags (e.g. "!%1") this way rather than with a YAMLException
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "not valid YAML: " + e.getMessage(), e);
     }
     if (root == null) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the profile is empty");

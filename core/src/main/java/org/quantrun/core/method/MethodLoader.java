@@ -125,6 +125,10 @@ public final class MethodLoader {
     } catch (YAMLException e) {
       problems.file(refusal(e.getMessage()), "a plain method file within the loader's limits");
       return Optional.empty();
+    } catch (IllegalArgumentException e) {
+      // SnakeYAML refuses some malformed tags (e.g. "!%1") this way rather than with a YAMLException
+      problems.file("is not valid YAML: " + e.getMessage(), "well-formed YAML without type tags");
+      return Optional.empty();
     }
   }
 

@@ -88,6 +88,13 @@ class HostileYamlTest {
       assertTrue(m.contains("qc.ccv.frequency") && m.contains("is a list") && m.contains("a whole number"), m);
     }
 
+    // found by MethodLoaderFuzzTest (input kept in its Inputs folder): SnakeYAML threw IllegalArgumentException
+    @Test
+    @DisplayName("with a malformed tag escape ('!%1') is refused as invalid YAML")
+    void malformedTagEscape() {
+      assertTrue(refused("!%1").contains("is not valid YAML"));
+    }
+
     @Test
     @DisplayName("with a mapping where a text belongs is refused, naming the key")
     void mappingWhereATextBelongs() {
@@ -147,6 +154,12 @@ class HostileYamlTest {
       ImportException e = refused("header_search_lines: [10, 20]\n");
       assertTrue(e.getMessage().startsWith("hostile.yaml:1:1: header_search_lines: expected a whole number from 1 to 100000"),
           e.getMessage());
+    }
+
+    @Test
+    @DisplayName("with a malformed tag escape ('!%1') is refused as invalid YAML")
+    void malformedTagEscape() {
+      assertTrue(refused("importer: !%1 x\n").getMessage().contains("not valid YAML"));
     }
 
     @Test
