@@ -7,6 +7,8 @@ import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
+import org.quantrun.core.yaml.NodeLimits;
 import org.yaml.snakeyaml.LoaderOptions;
 import org.yaml.snakeyaml.Yaml;
 import org.yaml.snakeyaml.constructor.SafeConstructor;
@@ -24,7 +26,8 @@ import org.yaml.snakeyaml.nodes.Tag;
  * Loads YAML import profiles: one export variant described as data (see
  * {@link ImportSettings#fromMap} for the keys). Safe loading only, through the node API: no
  * custom tags, at most {@value #MAX_ALIASES} aliases, nesting at most {@value #MAX_DEPTH} deep,
- * at most {@value #MAX_CODE_POINTS} characters, no duplicate keys. Every error names
+ * at most {@value #MAX_CODE_POINTS} characters, values of at most {@value #MAX_SCALAR_CHARACTERS}
+ * characters, no recursive aliases, no duplicate keys. Every error names
  * {@code file:line:col} and the key.
  */
 public final class ImportProfiles {
@@ -35,6 +38,8 @@ public final class ImportProfiles {
   public static final int MAX_ALIASES = 20;
   /** Deepest nesting accepted. */
   public static final int MAX_DEPTH = 10;
+  /** Longest single value (or key) accepted, in characters. */
+  public static final int MAX_SCALAR_CHARACTERS = 16 * 1024;
 
   private static final java.util.Set<Tag> STANDARD_TAGS =
       java.util.Set.of(Tag.MAP, Tag.SEQ, Tag.STR, Tag.INT, Tag.BOOL, Tag.NULL, Tag.FLOAT);
@@ -77,10 +82,18 @@ public final class ImportProfiles {
       String what = e.getProblem() != null ? e.getProblem() : e.getMessage();
       throw new ImportException(sourceName, position(m), "not valid YAML: " + what.strip(), e);
     } catch (YAMLException e) {
-      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "not a usable YAML profile: " + e.getMessage(), e);
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, refusal(e.getMessage()), e);
+    } catch (IllegalArgumentException e) {
+      // SnakeYAML refuses some malformed tags (e.g. "!%1") this way rather than with a YAMLException
+      throw new ImportException(sourceName, SourcePosition.UNKNOWN, "not valid YAML: " + e.getMessage(), e);
     }
     if (root == null) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the profile is empty");
+    }
+    Optional<NodeLimits.Violation> v = NodeLimits.check(root, MAX_SCALAR_CHARACTERS);
+    if (v.isPresent()) {
+      throw new ImportException(sourceName, position(v.get().mark()),
+          (v.get().path().isEmpty() ? "" : v.get().path() + ": ") + v.get().problem());
     }
     Map<String, SourcePosition> positions = new HashMap<>();
     Object value = plain(root, "", positions, sourceName);
@@ -90,6 +103,22 @@ public final class ImportProfiles {
     @SuppressWarnings("unchecked")
     Map<String, ?> map = (Map<String, ?>) value;
     return ImportSettings.fromMap(map, sourceName, k -> positions.getOrDefault(k, SourcePosition.UNKNOWN));
+  }
+
+  /** SnakeYAML's limit messages in the technician's words. */
+  private static String refusal(String message) {
+    String m = message == null ? "" : message;
+    String lower = m.toLowerCase(java.util.Locale.ROOT);
+    if (lower.contains("aliases")) {
+      return "the profile uses more than " + MAX_ALIASES + " aliases to mappings or lists and is refused (possible alias bomb)";
+    }
+    if (lower.contains("nesting")) {
+      return "the profile nests deeper than " + MAX_DEPTH + " levels and is refused";
+    }
+    if (lower.contains("code points")) {
+      return "the profile is larger than " + MAX_CODE_POINTS / 1024 + " KiB and is refused";
+    }
+    return "not a usable YAML profile: " + m;
   }
 
   private static SourcePosition position(Mark m) {

@@ -44,6 +44,16 @@ public final class ImportSettings {
   public static final Pattern DEFAULT_REPLICATE_PATTERN =
       Pattern.compile("(?i)(?:rep|replicate|reading|read)[ _#-]*(?<n>\\d+)");
 
+  /**
+   * Default largest export accepted, in bytes (256 MiB). A long-layout export of a large run
+   * (2,000 injections x 70 analyte lines x 3 replicates) is about 25 MB; a usual one 1 to 3 MB.
+   */
+  public static final long DEFAULT_MAX_FILE_BYTES = 256L << 20;
+  /** Default most injections in one export (a large run has about 2,000). */
+  public static final int DEFAULT_MAX_INJECTIONS = 200_000;
+  /** Default most distinct analyte lines in one export (a large method has about 100). */
+  public static final int DEFAULT_MAX_ANALYTE_LINES = 10_000;
+
   /** The defaults: auto-detected charset and delimiter, long layout, decimal point. */
   public static final ImportSettings DEFAULT = new Builder().build();
 
@@ -64,6 +74,9 @@ public final class ImportSettings {
   private final boolean unreadableTextInvalid;
   private final int headerSearchLines;
   private final int maxLineLength;
+  private final long maxFileBytes;
+  private final int maxInjections;
+  private final int maxAnalyteLines;
   private final List<FixedField> fixedFields;
   private final List<Pattern> contextPatterns;
   private final Optional<Pattern> dataRecordPattern;
@@ -91,6 +104,9 @@ public final class ImportSettings {
     unreadableTextInvalid = b.unreadableTextInvalid;
     headerSearchLines = b.headerSearchLines;
     maxLineLength = b.maxLineLength;
+    maxFileBytes = b.maxFileBytes;
+    maxInjections = b.maxInjections;
+    maxAnalyteLines = b.maxAnalyteLines;
     fixedFields = List.copyOf(b.fixedFields);
     contextPatterns = List.copyOf(b.contextPatterns);
     dataRecordPattern = b.dataRecordPattern;
@@ -111,7 +127,8 @@ public final class ImportSettings {
    * {@code config-examples/importers} profiles: {@code importer, charset, delimiter, quote,
    * decimal_separator, grouping_separator, layout, columns, required_columns, wide_column_pattern,
    * replicate_column_pattern, skip_rows, end_of_table, invalid_markers, unreadable_text_is_invalid,
-   * header_search_lines, max_line_length, fields, context_records, data_records, options}.
+   * header_search_lines, max_line_length, max_file_bytes, max_injections, max_analyte_lines, fields,
+   * context_records, data_records, options}.
    * Keys starting with {@code x_} and the key {@code description} are ignored.
    *
    * @param map the profile
@@ -247,6 +264,33 @@ public final class ImportSettings {
     return maxLineLength;
   }
 
+  /**
+   * The largest export accepted; a longer one is an import error, not an exhausted memory.
+   *
+   * @return bytes (default {@link #DEFAULT_MAX_FILE_BYTES})
+   */
+  public long maxFileBytes() {
+    return maxFileBytes;
+  }
+
+  /**
+   * The most injections an export may hold; more is an import error.
+   *
+   * @return the limit (default {@link #DEFAULT_MAX_INJECTIONS})
+   */
+  public int maxInjections() {
+    return maxInjections;
+  }
+
+  /**
+   * The most distinct analyte lines an export may hold; more is an import error.
+   *
+   * @return the limit (default {@link #DEFAULT_MAX_ANALYTE_LINES})
+   */
+  public int maxAnalyteLines() {
+    return maxAnalyteLines;
+  }
+
   /** @return fixed-width data fields; empty (default) means find them from a header with an underline row */
   public List<FixedField> fixedFields() {
     return fixedFields;
@@ -318,7 +362,8 @@ public final class ImportSettings {
     return List.of(importer, charset, delimiter, quote, decimalSeparator, groupingSeparator, layout,
         columnAliases, requiredColumns, wideColumnPattern.pattern(), replicateColumnPattern.pattern(),
         skipPatterns.stream().map(Pattern::pattern).toList(), endPattern.map(Pattern::pattern),
-        invalidMarkers, unreadableTextInvalid, headerSearchLines, maxLineLength, fixedFields,
+        invalidMarkers, unreadableTextInvalid, headerSearchLines, maxLineLength, maxFileBytes, maxInjections,
+        maxAnalyteLines, fixedFields,
         contextPatterns.stream().map(Pattern::pattern).toList(), dataRecordPattern.map(Pattern::pattern),
         options);
   }
@@ -342,6 +387,9 @@ public final class ImportSettings {
     private boolean unreadableTextInvalid;
     private int headerSearchLines = 200;
     private int maxLineLength = 1 << 20;
+    private long maxFileBytes = DEFAULT_MAX_FILE_BYTES;
+    private int maxInjections = DEFAULT_MAX_INJECTIONS;
+    private int maxAnalyteLines = DEFAULT_MAX_ANALYTE_LINES;
     private List<FixedField> fixedFields = new ArrayList<>();
     private List<Pattern> contextPatterns = new ArrayList<>();
     private Optional<Pattern> dataRecordPattern = Optional.empty();
@@ -367,6 +415,9 @@ public final class ImportSettings {
       unreadableTextInvalid = s.unreadableTextInvalid;
       headerSearchLines = s.headerSearchLines;
       maxLineLength = s.maxLineLength;
+      maxFileBytes = s.maxFileBytes;
+      maxInjections = s.maxInjections;
+      maxAnalyteLines = s.maxAnalyteLines;
       fixedFields = new ArrayList<>(s.fixedFields);
       contextPatterns = new ArrayList<>(s.contextPatterns);
       dataRecordPattern = s.dataRecordPattern;
@@ -582,6 +633,42 @@ public final class ImportSettings {
         throw new IllegalArgumentException("max line length must be >= 80");
       }
       maxLineLength = chars;
+      return this;
+    }
+
+    /**
+     * @param bytes the largest export accepted (at least 1)
+     * @return this builder
+     */
+    public Builder maxFileBytes(long bytes) {
+      if (bytes < 1) {
+        throw new IllegalArgumentException("max file bytes must be >= 1");
+      }
+      maxFileBytes = bytes;
+      return this;
+    }
+
+    /**
+     * @param injections the most injections an export may hold (at least 1)
+     * @return this builder
+     */
+    public Builder maxInjections(int injections) {
+      if (injections < 1) {
+        throw new IllegalArgumentException("max injections must be >= 1");
+      }
+      maxInjections = injections;
+      return this;
+    }
+
+    /**
+     * @param lines the most distinct analyte lines an export may hold (at least 1)
+     * @return this builder
+     */
+    public Builder maxAnalyteLines(int lines) {
+      if (lines < 1) {
+        throw new IllegalArgumentException("max analyte lines must be >= 1");
+      }
+      maxAnalyteLines = lines;
       return this;
     }
 

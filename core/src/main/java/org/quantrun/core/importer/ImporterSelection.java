@@ -10,7 +10,9 @@ import java.util.Optional;
 /**
  * Picks the importer for a file: by id, or {@value ImportSettings#AUTO}, the importer with the
  * highest {@link RunImporter#detect detection} confidence. A tie for the highest confidence is an
- * error that names both importers, and so is a best confidence of 0.
+ * error that names both importers, and so is a best confidence of 0, and so is a detector that
+ * throws anything at all (it is contained and named with its plugin: the importer that failed may
+ * have been the right one).
  *
  * <p>Immutable; build it from whatever importers the runner loaded.
  */
@@ -21,10 +23,22 @@ public final class ImporterSelection {
    *
    * @param importerId the importer's id
    * @param confidence its confidence, clamped to 0..1 (0 when its detector threw)
+   * @param failure what its detector threw, if it threw
    */
-  public record Candidate(String importerId, double confidence) {}
+  public record Candidate(String importerId, double confidence, Optional<String> failure) {
+    /**
+     * A result of a detector that did not throw.
+     *
+     * @param importerId the importer's id
+     * @param confidence its confidence
+     */
+    public Candidate(String importerId, double confidence) {
+      this(importerId, confidence, Optional.empty());
+    }
+  }
 
   private final Map<String, RunImporter> importers;
+  private final Map<String, String> origins;
 
   /**
    * A selection over these importers.
@@ -33,6 +47,19 @@ public final class ImporterSelection {
    * @throws IllegalArgumentException if two importers have the same id, or one is named auto
    */
   public ImporterSelection(List<RunImporter> importers) {
+    this(importers, Map.of());
+  }
+
+  /**
+   * A selection over these importers, knowing where each came from, so that a failing importer
+   * is named with its plugin in messages.
+   *
+   * @param importers the importers available; ids must be unique
+   * @param origins per importer id, where it came from, e.g. {@code plugin 'acme' (acme-1.2.jar)}
+   * @throws IllegalArgumentException if two importers have the same id, or one is named auto
+   */
+  public ImporterSelection(List<RunImporter> importers, Map<String, String> origins) {
+    this.origins = Map.copyOf(origins);
     Map<String, RunImporter> m = new LinkedHashMap<>();
     for (RunImporter i : importers) {
       if (i.id().equals(ImportSettings.AUTO)) {
@@ -52,6 +79,18 @@ public final class ImporterSelection {
    */
   public List<RunImporter> importers() {
     return List.copyOf(importers.values());
+  }
+
+  /**
+   * Names an importer for messages: {@code importer 'x'}, followed by where it came from when
+   * known, e.g. {@code importer 'x' of plugin 'acme' (acme-1.2.jar)}.
+   *
+   * @param id the importer id
+   * @return the description
+   */
+  public String describe(String id) {
+    String o = origins.get(id);
+    return "importer '" + id + "'" + (o == null ? "" : " of " + o);
   }
 
   /**
@@ -77,12 +116,14 @@ public final class ImporterSelection {
     List<Candidate> out = new ArrayList<>();
     for (RunImporter i : importers.values()) {
       double c;
+      Optional<String> failure = Optional.empty();
       try {
         c = i.detect(fileName, h.clone());
-      } catch (RuntimeException e) {
-        c = 0; // a detector that throws cannot read the file
+      } catch (Throwable e) { // a plugin's detector is contained, whatever it throws
+        c = 0;
+        failure = Optional.of(String.valueOf(e));
       }
-      out.add(new Candidate(i.id(), Double.isFinite(c) ? Math.max(0, Math.min(1, c)) : 0));
+      out.add(new Candidate(i.id(), Double.isFinite(c) ? Math.max(0, Math.min(1, c)) : 0, failure));
     }
     out.sort(Comparator.comparingDouble(Candidate::confidence).reversed());
     return out;
@@ -108,6 +149,13 @@ public final class ImporterSelection {
       return i;
     }
     List<Candidate> c = detect(fileName, head);
+    for (Candidate k : c) {
+      if (k.failure().isPresent()) {
+        // the failing importer may have been the right one: auto cannot choose safely
+        throw new ImportException(fileName, SourcePosition.UNKNOWN, describe(k.importerId())
+            + " failed while detecting this file (" + k.failure().get() + "); remove or update the plugin, or name the importer in the method");
+      }
+    }
     if (c.isEmpty() || c.get(0).confidence() <= 0) {
       throw new ImportException(fileName, SourcePosition.UNKNOWN, "no installed importer recognises this file (installed: "
           + (importers.isEmpty() ? "none" : String.join(", ", importers.keySet())) + "); name one in the method");

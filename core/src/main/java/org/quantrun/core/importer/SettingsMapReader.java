@@ -20,6 +20,7 @@ final class SettingsMapReader {
       "decimal_separator", "grouping_separator", "layout", "columns", "required_columns",
       "wide_column_pattern", "replicate_column_pattern", "skip_rows", "end_of_table",
       "invalid_markers", "unreadable_text_is_invalid", "header_search_lines", "max_line_length",
+      "max_file_bytes", "max_injections", "max_analyte_lines",
       "fields", "context_records", "data_records", "options");
 
   private final String source;
@@ -129,6 +130,15 @@ final class SettingsMapReader {
       }
       if (map.containsKey("max_line_length")) {
         b.maxLineLength(integer(map, "max_line_length", 80, 64 << 20));
+      }
+      if (map.containsKey("max_file_bytes")) {
+        b.maxFileBytes(integer(map, "max_file_bytes", 1, Integer.MAX_VALUE));
+      }
+      if (map.containsKey("max_injections")) {
+        b.maxInjections(integer(map, "max_injections", 1, 10_000_000));
+      }
+      if (map.containsKey("max_analyte_lines")) {
+        b.maxAnalyteLines(integer(map, "max_analyte_lines", 1, 1_000_000));
       }
       if (map.containsKey("fields")) {
         Object f = map.get("fields");

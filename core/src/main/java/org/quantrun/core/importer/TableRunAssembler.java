@@ -197,6 +197,9 @@ public final class TableRunAssembler {
     if (!duplicates.isEmpty()) {
       throw new ImportException(sourceName, new SourcePosition(line, firstDuplicateColumn), duplicates.get(0));
     }
+    if (wide.stream().map(WideColumn::analyteLine).distinct().count() > settings.maxAnalyteLines()) {
+      throw tooManyLines(line, 1);
+    }
     hasHeader = true;
     colSample = index(canon, ColumnNames.SAMPLE_ID);
     colSeq = index(canon, ColumnNames.SEQUENCE);
@@ -420,6 +423,10 @@ public final class TableRunAssembler {
     }
     if (current == null || restart || !key.equals(currentKey)) {
       closeInjection();
+      if (injections.size() >= settings.maxInjections()) {
+        throw new ImportException(sourceName, SourcePosition.ofLine(line), "the export has more than "
+            + settings.maxInjections() + " injections (max_injections in the import profile)");
+      }
       int sequence = injections.size() + 1;
       if (seqText.isPresent()) {
         sequence = sequence(seqText.get(), line, colSeq < 0 ? 0 : column(colSeq));
@@ -453,6 +460,9 @@ public final class TableRunAssembler {
       }
       Matcher m = ANALYTE_AND_LINE.matcher(text);
       al = m.matches() ? analyteLine(m.group(1), m.group(2)) : analyteLine(text, "");
+    }
+    if (lineCache.size() > settings.maxAnalyteLines()) {
+      throw tooManyLines(line, column(alCol));
     }
     LineBuilder lb = current.line(al, line, column(alCol));
     for (int r : replicateIndexes) {
@@ -519,6 +529,11 @@ public final class TableRunAssembler {
     }
     throw new ImportException(sourceName, new SourcePosition(line, column),
         "sequence \"" + text.strip() + "\" is not a whole number >= 1");
+  }
+
+  private ImportException tooManyLines(int line, int column) {
+    return new ImportException(sourceName, new SourcePosition(line, column), "the export has more than "
+        + settings.maxAnalyteLines() + " analyte lines (max_analyte_lines in the import profile)");
   }
 
   private AnalyteLine analyteLine(String analyte, String line) {

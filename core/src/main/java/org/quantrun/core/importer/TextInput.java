@@ -20,7 +20,8 @@ import java.util.Optional;
  * <p>The charset is the one in the settings, or detected: a byte-order mark (UTF-8, UTF-16 LE/BE),
  * else UTF-8 when the first 64 KB are valid UTF-8, else Windows-1252. A byte-order mark is
  * skipped. Binary data (NUL bytes, many control characters), text that is not valid in the
- * charset and lines longer than {@link ImportSettings#maxLineLength()} end reading with an
+ * charset, lines longer than {@link ImportSettings#maxLineLength()} and more bytes than
+ * {@link ImportSettings#maxFileBytes()} end reading with an
  * {@link IOException} whose {@link #problem problem} names the line; use {@link #problem} to turn
  * any exception of this reader into an {@link ImportException}.
  */
@@ -39,12 +40,15 @@ public final class TextInput extends Reader {
   private final Charset charset;
   private final String sourceName;
   private final int maxLineLength;
+  private final long maxBytes;
+  private long bytesRead;
   private int line = 1;
   private int lineLength;
   private ImportException failure;
 
-  private TextInput(InputStream in, CharsetDecoder decoder, String sourceName, int maxLineLength) {
+  private TextInput(InputStream in, CharsetDecoder decoder, String sourceName, int maxLineLength, long maxBytes) {
     this.in = in;
+    this.maxBytes = maxBytes;
     this.decoder = decoder;
     this.charset = decoder.charset();
     this.sourceName = sourceName;
@@ -71,6 +75,9 @@ public final class TextInput extends Reader {
     } catch (IOException e) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "cannot be read: " + e.getMessage(), e);
     }
+    if (head.length > settings.maxFileBytes()) {
+      throw tooLarge(sourceName, settings.maxFileBytes());
+    }
     Optional<Charset> bom = bomCharset(head);
     Charset cs;
     if (settings.charset().isPresent()) {
@@ -92,10 +99,15 @@ public final class TextInput extends Reader {
       CharsetDecoder decoder = decodeAs.newDecoder()
           .onMalformedInput(CodingErrorAction.REPORT)
           .onUnmappableCharacter(CodingErrorAction.REPORT);
-      return new TextInput(buffered, decoder, sourceName, settings.maxLineLength());
+      return new TextInput(buffered, decoder, sourceName, settings.maxLineLength(), settings.maxFileBytes());
     } catch (IOException e) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "cannot be read: " + e.getMessage(), e);
     }
+  }
+
+  private static ImportException tooLarge(String sourceName, long maxBytes) {
+    return new ImportException(sourceName, SourcePosition.UNKNOWN,
+        "the file is larger than " + maxBytes + " bytes (max_file_bytes in the import profile)");
   }
 
   /**
@@ -268,6 +280,11 @@ public final class TextInput extends Reader {
     if (n < 0) {
       endOfInput = true;
     } else {
+      bytesRead += n;
+      if (bytesRead > maxBytes) {
+        failure = tooLarge(sourceName, maxBytes);
+        throw new IOException(failure.getMessage());
+      }
       bytes.position(bytes.position() + n);
     }
     bytes.flip();

@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.Reader;
 import java.io.StringReader;
 import java.util.Optional;
+import org.quantrun.core.yaml.NodeLimits;
 import org.yaml.snakeyaml.DumperOptions;
 import org.yaml.snakeyaml.LoaderOptions;
 import org.yaml.snakeyaml.Yaml;
@@ -16,7 +17,8 @@ import org.yaml.snakeyaml.representer.Representer;
 /**
  * Loads and validates a method file (YAML). The text is composed into SnakeYAML's node tree
  * only: no Java object is ever constructed from it, explicit type tags are refused, and the size,
- * nesting depth and alias count are limited so a hostile file is refused with a message. Every
+ * nesting depth, alias count and length of each value are limited, and recursive aliases refused,
+ * so a hostile file is refused with a message. Every
  * problem is collected in one pass and thrown together in one {@link MethodException}.
  *
  * <pre>{@code
@@ -31,6 +33,8 @@ public final class MethodLoader {
   public static final int MAX_NESTING_DEPTH = 32;
   /** The most aliases to mappings or lists accepted in one file. */
   public static final int MAX_COLLECTION_ALIASES = 20;
+  /** The longest single value (or key) accepted, in characters. */
+  public static final int MAX_SCALAR_CHARACTERS = 16 * 1024;
 
   private MethodLoader() {}
 
@@ -101,6 +105,12 @@ public final class MethodLoader {
         problems.file("the file is empty", "a method: section and the others");
         return Optional.empty();
       }
+      Optional<NodeLimits.Violation> v = NodeLimits.check(root, MAX_SCALAR_CHARACTERS);
+      if (v.isPresent()) {
+        problems.add(v.get().mark(), v.get().path(), v.get().problem(),
+            "values of at most " + MAX_SCALAR_CHARACTERS + " characters; aliases only to whole mappings or lists");
+        return Optional.empty();
+      }
       return Optional.of(root);
     } catch (MarkedYAMLException e) {
       String problem = e.getProblem() == null ? "" : e.getProblem();
@@ -114,6 +124,10 @@ public final class MethodLoader {
       return Optional.empty();
     } catch (YAMLException e) {
       problems.file(refusal(e.getMessage()), "a plain method file within the loader's limits");
+      return Optional.empty();
+    } catch (IllegalArgumentException e) {
+      // SnakeYAML refuses some malformed tags (e.g. "!%1") this way rather than with a YAMLException
+      problems.file("is not valid YAML: " + e.getMessage(), "well-formed YAML without type tags");
       return Optional.empty();
     }
   }

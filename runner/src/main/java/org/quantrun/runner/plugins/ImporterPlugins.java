@@ -17,11 +17,13 @@ import org.quantrun.core.importer.ImporterSelection;
 import org.quantrun.core.importer.RunImporter;
 
 /**
- * Loads the importer plugins: every {@code *.jar} in a plugins folder is tried as a PF4J plugin
+ * Loads the importer plugins: every {@code *.jar} file in a plugins folder (not in its sub-folders,
+ * not a symbolic link to a file elsewhere) is tried as a PF4J plugin
  * (manifest entries {@code Plugin-Id}, {@code Plugin-Version}, {@code Plugin-Requires}); its
  * {@link RunImporter} extensions are collected. A jar that is broken, not a plugin, requires an
  * importer API this runner does not have, fails to start or holds no usable importer is reported
- * as a {@link Problem} and skipped; the others load regardless. Importer extensions on the
+ * as a {@link Problem} and skipped; the others load regardless. Each loaded jar's SHA-256 is
+ * taken for {@code quantrun importers} and the audit trail. Importer extensions on the
  * runner's own class path (listed in its {@code META-INF/extensions.idx}) are added too, so
  * in-process tools and tests can find importers without jars.
  */
@@ -34,8 +36,33 @@ public final class ImporterPlugins {
    * @param pluginId the plugin id, or {@code "class path"}
    * @param version the plugin version, or the runner's for class-path importers
    * @param source the jar it came from, if any
+   * @param sha256 the SHA-256 of that jar (lower-case hex), if it came from one
    */
-  public record LoadedImporter(RunImporter importer, String pluginId, String version, Optional<Path> source) {}
+  public record LoadedImporter(RunImporter importer, String pluginId, String version, Optional<Path> source,
+      Optional<String> sha256) {
+
+    /**
+     * An importer from the class path or a jar whose digest is not known.
+     *
+     * @param importer the importer
+     * @param pluginId the plugin id
+     * @param version the version
+     * @param source the jar, if any
+     */
+    public LoadedImporter(RunImporter importer, String pluginId, String version, Optional<Path> source) {
+      this(importer, pluginId, version, source, Optional.empty());
+    }
+
+    /**
+     * Where the importer came from, for messages: {@code plugin 'delimited' (quantrun-importer-delimited-0.1.0.jar)}
+     * or {@code the class path}.
+     *
+     * @return the description
+     */
+    public String origin() {
+      return source.map(p -> "plugin '" + pluginId + "' (" + p.getFileName() + ")").orElse("the class path");
+    }
+  }
 
   /**
    * A plugin that was skipped.
@@ -68,9 +95,13 @@ public final class ImporterPlugins {
       problems = List.copyOf(problems);
     }
 
-    /** @return the selection service over the loaded importers */
+    /** @return the selection service over the loaded importers, naming each importer's plugin in messages */
     public ImporterSelection selection() {
-      return new ImporterSelection(importers.stream().map(LoadedImporter::importer).toList());
+      java.util.Map<String, String> origins = new java.util.HashMap<>();
+      for (LoadedImporter li : importers) {
+        origins.put(li.importer().id(), li.origin());
+      }
+      return new ImporterSelection(importers.stream().map(LoadedImporter::importer).toList(), origins);
     }
   }
 
@@ -143,8 +174,13 @@ public final class ImporterPlugins {
       if (found.isEmpty()) {
         problems.add(new Problem(name, "plugin '" + id + "' holds no usable importer"));
       }
+      Optional<String> digest = sha256(w.getPluginPath(), name, problems);
+      if (digest.isEmpty()) {
+        continue;
+      }
       for (RunImporter r : found) {
-        add(loaded, ids, problems, new LoadedImporter(r, id, w.getDescriptor().getVersion(), Optional.of(w.getPluginPath())), name);
+        add(loaded, ids, problems,
+            new LoadedImporter(r, id, w.getDescriptor().getVersion(), Optional.of(w.getPluginPath()), digest), name);
       }
     }
     for (RunImporter r : extensions(manager, null, "class path", problems)) {
@@ -181,6 +217,15 @@ public final class ImporterPlugins {
     }
   }
 
+  private static Optional<String> sha256(Path jar, String name, List<Problem> problems) {
+    try {
+      return Optional.of(org.quantrun.runner.output.Digests.sha256(jar));
+    } catch (IOException e) {
+      problems.add(new Problem(name, "cannot be read to take its SHA-256: " + e.getMessage()));
+      return Optional.empty();
+    }
+  }
+
   private static void unload(PluginManager manager, String id) {
     try {
       manager.unloadPlugin(id);
@@ -194,8 +239,17 @@ public final class ImporterPlugins {
       problems.add(new Problem(dir.toString(), "plugins folder not found"));
       return List.of();
     }
+    List<Path> jars = new ArrayList<>();
     try (Stream<Path> s = Files.list(dir)) {
-      return s.filter(p -> p.getFileName().toString().endsWith(".jar") && Files.isRegularFile(p)).sorted().toList();
+      for (Path p : s.filter(p -> p.getFileName().toString().endsWith(".jar")).sorted().toList()) {
+        if (Files.isSymbolicLink(p)) {
+          // only jars that are in the plugins folder itself load, not files linked from elsewhere
+          problems.add(new Problem(p.getFileName().toString(), "is a symbolic link; copy the jar into the plugins folder"));
+        } else if (Files.isRegularFile(p, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+          jars.add(p);
+        }
+      }
+      return jars;
     } catch (IOException e) {
       problems.add(new Problem(dir.toString(), "plugins folder cannot be read: " + e.getMessage()));
       return List.of();

@@ -21,7 +21,7 @@ import picocli.CommandLine.Mixin;
  * would pick.
  */
 @Command(name = "importers", mixinStandardHelpOptions = true,
-    description = "Lists the installed importers (id, version, description); skipped plugins are reported on stderr.")
+    description = "Lists the installed importers (id, version, SHA-256 of the plugin jar, description); skipped plugins are reported on stderr.")
 public final class ImportersCommand implements Callable<Integer> {
 
   @Mixin PluginOptions plugins;
@@ -54,14 +54,23 @@ public final class ImportersCommand implements Callable<Integer> {
       idWidth = Math.max(idWidth, li.importer().id().length());
       versionWidth = Math.max(versionWidth, li.version().length());
     }
-    String row = "%-" + idWidth + "s  %-" + versionWidth + "s  %s%n";
-    out.printf(row, "id", "version", "description");
+    String row = "%-" + idWidth + "s  %-" + versionWidth + "s  %-64s  %s%n";
+    out.printf(row, "id", "version", "sha256", "description");
     for (ImporterPlugins.LoadedImporter li : result.importers()) {
-      out.printf(row, li.importer().id(), li.version(), li.importer().description());
+      out.printf(row, li.importer().id(), li.version(), li.sha256().orElse("(class path)"), description(li));
     }
     out.flush();
     err.flush();
     return 0;
+  }
+
+  private static String description(ImporterPlugins.LoadedImporter li) {
+    try {
+      String d = li.importer().description();
+      return d == null ? "" : d.replaceAll("\\p{Cntrl}", " ");
+    } catch (Throwable e) { // a plugin's failure is contained and shown, never a stack trace
+      return "(" + li.origin() + " failed to describe itself: " + e + ")";
+    }
   }
 
   private int detect(ImporterSelection selection, PrintWriter out, PrintWriter err) {
@@ -75,7 +84,8 @@ public final class ImportersCommand implements Callable<Integer> {
       return org.quantrun.runner.Main.EXIT_INPUT_ERROR;
     }
     for (ImporterSelection.Candidate c : selection.detect(name, head)) {
-      out.printf(Locale.ROOT, "%-16s %.2f%n", c.importerId(), c.confidence());
+      out.printf(Locale.ROOT, "%-16s %.2f%s%n", c.importerId(), c.confidence(),
+          c.failure().map(f -> "  (failed: " + f + ")").orElse(""));
     }
     try {
       out.println("auto picks: " + selection.select(ImportSettings.AUTO, name, head).id());

@@ -16,7 +16,9 @@ import org.quantrun.core.importer.SourcePosition;
 /**
  * Reads an export file into a run: picks the importer named by the settings (an id, or
  * {@code auto} for the highest detection confidence) and reads the file with it. The file is
- * only read, never changed. Every failure is one {@link ImportException} naming the file.
+ * only read, never changed. Every failure is one {@link ImportException} naming the file; an
+ * importer that throws anything else is contained and named with its plugin. The size limits of
+ * the settings are checked before reading and on the run read.
  */
 public final class RunFileImport {
 
@@ -41,6 +43,10 @@ public final class RunFileImport {
   public static ImportSettings loadProfile(Path profile) throws ImportException {
     String name = profile.getFileName().toString();
     try {
+      if (Files.size(profile) > 4L * ImportProfiles.MAX_CODE_POINTS) {
+        throw new ImportException(name, SourcePosition.UNKNOWN,
+            "the profile is larger than " + ImportProfiles.MAX_CODE_POINTS / 1024 + " KiB and is refused");
+      }
       return ImportProfiles.parse(Files.readString(profile), name);
     } catch (NoSuchFileException e) {
       throw new ImportException(name, SourcePosition.UNKNOWN, "import profile not found");
@@ -79,16 +85,46 @@ public final class RunFileImport {
    * @throws ImportException for any problem, naming the file and, where known, line and column
    */
   public RawRun read(Path file, ImportSettings settings) throws ImportException {
-    RunImporter importer = importerFor(file, settings);
     String name = file.getFileName().toString();
-    try (InputStream in = Files.newInputStream(file)) {
-      return importer.read(in, settings, name);
+    try {
+      if (Files.size(file) > settings.maxFileBytes()) {
+        throw new ImportException(name, SourcePosition.UNKNOWN,
+            "the file is larger than " + settings.maxFileBytes() + " bytes (max_file_bytes in the import profile)");
+      }
+    } catch (NoSuchFileException e) {
+      throw new ImportException(name, SourcePosition.UNKNOWN, "file not found");
     } catch (IOException e) {
       throw new ImportException(name, SourcePosition.UNKNOWN, "cannot be read: " + e.getMessage(), e);
-    } catch (RuntimeException e) {
-      // a plugin broke its contract; report it as this file's problem, never as a stack trace
-      throw new ImportException(name, SourcePosition.UNKNOWN,
-          "importer '" + importer.id() + "' failed unexpectedly: " + e, e);
     }
+    RunImporter importer = importerFor(file, settings);
+    String id = importer.id();
+    RawRun run;
+    try (InputStream in = Files.newInputStream(file)) {
+      run = importer.read(in, settings, name);
+    } catch (IOException e) {
+      throw new ImportException(name, SourcePosition.UNKNOWN, "cannot be read: " + e.getMessage(), e);
+    } catch (ImportException e) {
+      throw e;
+    } catch (Throwable e) {
+      // a plugin broke its contract, whatever it threw: this file's problem, never a stack trace
+      throw new ImportException(name, SourcePosition.UNKNOWN, selection.describe(id) + " failed unexpectedly: " + e, e);
+    }
+    return withinLimits(run, settings, name, id);
+  }
+
+  /** The limits hold for third-party importers too, whether or not they count. */
+  private RawRun withinLimits(RawRun run, ImportSettings settings, String name, String id) throws ImportException {
+    if (run == null) {
+      throw new ImportException(name, SourcePosition.UNKNOWN, selection.describe(id) + " gave no run");
+    }
+    if (run.injections().size() > settings.maxInjections()) {
+      throw new ImportException(name, SourcePosition.UNKNOWN, "the export has more than " + settings.maxInjections()
+          + " injections (max_injections in the import profile)");
+    }
+    if (run.analyteLines().size() > settings.maxAnalyteLines()) {
+      throw new ImportException(name, SourcePosition.UNKNOWN, "the export has more than " + settings.maxAnalyteLines()
+          + " analyte lines (max_analyte_lines in the import profile)");
+    }
+    return run;
   }
 }

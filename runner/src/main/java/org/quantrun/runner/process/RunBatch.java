@@ -293,6 +293,10 @@ public final class RunBatch {
             + " describes no prep sheet (expected a dilution.prep-sheet section in " + req.method().name() + ")"));
       }
       try {
+        if (Files.size(in.file()) > PrepSheetParser.MAX_CHARACTERS) {
+          throw new MethodFiles.Failure(List.of(in.name() + ": the prep sheet is larger than "
+              + PrepSheetParser.MAX_CHARACTERS / (1 << 20) + " MiB and is refused"));
+        }
         prep = Optional.of(PrepSheetParser.parse(MethodFiles.readUtf8(in.file()), in.name(), method.dilution().prepSheet().get()));
       } catch (MethodException e) {
         throw MethodFiles.problems(cmd, in.name(), e.problems());
@@ -346,7 +350,7 @@ public final class RunBatch {
       RunResult result = pipeline.process(raw, p.method(), p.prep());
       List<Audit.PluginRef> plugins = req.plugins().importers().stream()
           .map(li -> new Audit.PluginRef(li.pluginId(), li.version(), li.importer().id(),
-              li.source().map(s -> s.getFileName().toString())))
+              li.source().map(s -> s.getFileName().toString()), li.sha256()))
           .toList();
       Audit audit = new Audit(Main.version(), System.getProperty("java.version"), user(), host(), started, inputs,
           new Audit.MethodRef(p.method().identity().id(), p.method().identity().version(), p.methodSha()), plugins,

@@ -86,8 +86,22 @@ public record Audit(
    * @param version its version
    * @param importerId the importer it provides
    * @param jar the jar's file name, if any
+   * @param sha256 the SHA-256 of the jar's content, if it came from a jar
    */
-  public record PluginRef(String pluginId, String version, String importerId, Optional<String> jar) {}
+  public record PluginRef(String pluginId, String version, String importerId, Optional<String> jar,
+      Optional<String> sha256) {
+    /**
+     * A plugin whose jar digest is not known (or an importer from the class path).
+     *
+     * @param pluginId the plugin id
+     * @param version its version
+     * @param importerId the importer it provides
+     * @param jar the jar's file name, if any
+     */
+    public PluginRef(String pluginId, String version, String importerId, Optional<String> jar) {
+      this(pluginId, version, importerId, jar, Optional.empty());
+    }
+  }
 
   /**
    * One output file.
@@ -141,6 +155,11 @@ public record Audit(
         o.put("jar", p.jar().get());
       } else {
         o.putNull("jar");
+      }
+      if (p.sha256().isPresent()) {
+        o.put("sha256", p.sha256().get());
+      } else {
+        o.putNull("sha256");
       }
     }
     ArrayNode out = root.putArray("outputs");

@@ -99,7 +99,7 @@ class ImporterPluginsTest {
   }
 
   @Test
-  @DisplayName("'quantrun importers' lists id, version and description of each importer")
+  @DisplayName("'quantrun importers' lists id, version, the jar's SHA-256 and description of each importer")
   void importersCommandLists() {
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();
@@ -109,9 +109,9 @@ class ImporterPluginsTest {
     int code = cl.execute("importers", "--plugins", BUILT.toString());
     assertEquals(0, code, err.toString());
     String[] lines = out.toString().split("\\R");
-    assertTrue(lines[0].matches("id\\s+version\\s+description"), lines[0]);
-    assertTrue(java.util.Arrays.stream(lines).anyMatch(l -> l.matches("delimited\\s+0\\.1\\.0-SNAPSHOT\\s+Delimited text exports.*")),
-        out.toString());
+    assertTrue(lines[0].matches("id\\s+version\\s+sha256\\s+description"), lines[0]);
+    assertTrue(java.util.Arrays.stream(lines)
+        .anyMatch(l -> l.matches("delimited\\s+0\\.1\\.0-SNAPSHOT\\s+[0-9a-f]{64}\\s+Delimited text exports.*")), out.toString());
     assertTrue(java.util.Arrays.stream(lines).anyMatch(l -> l.startsWith("fixed-width ")), out.toString());
     assertEquals("", err.toString());
   }
@@ -142,7 +142,7 @@ class ImporterPluginsTest {
     assertTrue(err.toString().contains("does not exist"), err.toString());
   }
 
-  private static Manifest pluginManifest(String id, String requires) {
+  static Manifest pluginManifest(String id, String requires) {
     Manifest m = new Manifest();
     Attributes a = m.getMainAttributes();
     a.put(Attributes.Name.MANIFEST_VERSION, "1.0");
@@ -152,7 +152,7 @@ class ImporterPluginsTest {
     return m;
   }
 
-  private static void writeJar(Path path, Manifest m, String entry, String content) throws IOException {
+  static void writeJar(Path path, Manifest m, String entry, String content) throws IOException {
     if (m.getMainAttributes().isEmpty()) {
       m.getMainAttributes().put(Attributes.Name.MANIFEST_VERSION, "1.0");
     }

@@ -32,6 +32,9 @@ public final class PrepSheetParser {
   /** A plain decimal number: no hexadecimal, no NaN or Infinity, no type suffix. */
   private static final java.util.regex.Pattern PLAIN_NUMBER = java.util.regex.Pattern.compile("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
 
+  /** The largest prep sheet accepted, in characters (4 MiB; a sheet of 1,000 samples is about 60 KB). */
+  public static final int MAX_CHARACTERS = 4 << 20;
+
   private PrepSheetParser() {}
 
   /**
@@ -44,11 +47,16 @@ public final class PrepSheetParser {
    * @throws MethodException listing every problem, when the sheet cannot be used
    */
   public static PrepSheet parse(String text, String sourceName, PrepSheetLayout layout) throws MethodException {
+    if (text.length() > MAX_CHARACTERS) {
+      throw new MethodException(List.of(new MethodProblem(sourceName, 0, 0, "", "the prep sheet is larger than "
+          + MAX_CHARACTERS / (1 << 20) + " MiB and is refused", Optional.of("a prep sheet of at most " + MAX_CHARACTERS + " characters"))));
+    }
     List<MethodProblem> problems = new ArrayList<>();
     List<PrepSheetRow> rows = new ArrayList<>();
     String body = text.startsWith("\uFEFF") ? text.substring(1) : text;
     try (CSVParser parser = CSVParser.parse(new StringReader(body), FORMAT)) {
       Map<String, Integer> header = null;
+      int width = 0;
       Map<String, Integer> seen = new HashMap<>();
       long linesBefore = 0;
       for (CSVRecord record : parser) {
@@ -56,12 +64,13 @@ public final class PrepSheetParser {
         linesBefore = parser.getCurrentLineNumber();
         if (header == null) {
           header = header(record, line, sourceName, layout, problems);
+          width = record.size();
           if (header == null) {
             break;
           }
           continue;
         }
-        new RowReader(sourceName, line, record, header, problems).read(layout, seen).ifPresent(rows::add);
+        new RowReader(sourceName, line, record, header, width, problems).read(layout, seen).ifPresent(rows::add);
       }
       if (header == null && problems.isEmpty()) {
         problems.add(new MethodProblem(sourceName, 0, 0, "", "the prep sheet is empty", Optional.of("a heading line and one row per sample")));
@@ -99,13 +108,15 @@ public final class PrepSheetParser {
   }
 
   /** Reads the fields of one row. */
-  private record RowReader(String source, int line, CSVRecord record, Map<String, Integer> header, List<MethodProblem> problems) {
+  /** Reads one row; {@code width} is the number of fields of the heading line (empty headings may repeat). */
+  private record RowReader(String source, int line, CSVRecord record, Map<String, Integer> header, int width,
+      List<MethodProblem> problems) {
 
     Optional<PrepSheetRow> read(PrepSheetLayout layout, Map<String, Integer> seen) {
       int before = problems.size();
-      if (record.size() != header.size()) {
-        problems.add(new MethodProblem(source, line, 1, "", "row has " + record.size() + " fields but the heading line has " + header.size(),
-            Optional.of(header.size() + " fields")));
+      if (record.size() != width) {
+        problems.add(new MethodProblem(source, line, 1, "", "row has " + record.size() + " fields but the heading line has " + width,
+            Optional.of(width + " fields")));
         return Optional.empty();
       }
       String id = text(layout.sampleIdColumn());

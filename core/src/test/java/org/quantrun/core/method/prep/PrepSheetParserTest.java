@@ -66,6 +66,16 @@ class PrepSheetParserTest {
     assertEquals(Optional.empty(), noSolids.toSampleBasis(100, ConcentrationUnit.UG_PER_L, LAYOUT));
   }
 
+  // found by PrepSheetFuzzTest (inputs kept in its Inputs folder): repeated empty headings made the
+  // heading count smaller than the heading line, and a row of that many fields read past its end
+  @Test
+  @DisplayName("with repeated empty headings, a row shorter than the heading line is refused naming both field counts")
+  void repeatedEmptyHeadingsDoNotHideAShortRow() {
+    String text = ",," + HEADER + "S-1,P1,0.5,50,1,0.9\n";
+    MethodException e = assertThrows(MethodException.class, () -> PrepSheetParser.parse(text, "prep.csv", LAYOUT));
+    assertEquals("prep.csv:2:1: row has 6 fields but the heading line has 8 (expected 8 fields)", e.getMessage());
+  }
+
   @Test
   @DisplayName("every bad field is reported in one pass with its line, column and heading")
   void badFieldsAreReportedTogether() {

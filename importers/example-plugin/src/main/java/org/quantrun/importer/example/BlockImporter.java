@@ -5,10 +5,12 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
 import org.pf4j.Extension;
 import org.quantrun.core.importer.AnalyteLine;
 import org.quantrun.core.importer.ImportException;
@@ -37,7 +39,9 @@ import org.quantrun.core.importer.ValueReader;
  * <p>{@code # key: value} lines are metadata; {@code [sample id]} opens an injection; every other
  * non-blank line is {@code analyte [line] = reading; reading; ...}. It shows the parts every
  * importer needs: {@link TextInput} for safe decoding, {@link ValueReader} for numbers and
- * invalid markers, positions on every item, and {@link ImportException} for everything else.
+ * invalid markers, positions on every item, the limits of the settings (file size through
+ * {@link TextInput}; injections and analyte lines counted here), and {@link ImportException} for
+ * everything else.
  */
 @Extension
 public final class BlockImporter implements RunImporter {
@@ -71,6 +75,7 @@ public final class BlockImporter implements RunImporter {
     ValueReader values = new ValueReader(sourceName, settings);
     List<MetadataEntry> metadata = new ArrayList<>();
     List<Injection> injections = new ArrayList<>();
+    Set<AnalyteLine> seenLines = new HashSet<>();
     Block block = null;
     int lineNo = 0;
     try (BufferedReader reader = new BufferedReader(text)) {
@@ -83,20 +88,32 @@ public final class BlockImporter implements RunImporter {
         }
         if (l.startsWith("#")) {
           int colon = l.indexOf(':');
-          if (colon > 1) {
-            metadata.add(new MetadataEntry(l.substring(1, colon).strip(), l.substring(colon + 1).strip(),
-                SourcePosition.ofLine(lineNo)));
+          String key = colon > 1 ? l.substring(1, colon).strip() : "";
+          if (!key.isEmpty()) {
+            metadata.add(new MetadataEntry(key, l.substring(colon + 1).strip(), SourcePosition.ofLine(lineNo)));
           }
         } else if (l.startsWith("[") && l.endsWith("]") && l.length() > 2) {
+          String sampleId = l.substring(1, l.length() - 1).strip();
+          if (sampleId.isEmpty()) {
+            throw new ImportException(sourceName, new SourcePosition(lineNo, 1), "the sample id between [ and ] is empty");
+          }
           if (block != null) {
             injections.add(block.build(sourceName, injections.size() + 1));
           }
-          block = new Block(l.substring(1, l.length() - 1).strip(), lineNo);
+          if (injections.size() >= settings.maxInjections()) {
+            throw new ImportException(sourceName, SourcePosition.ofLine(lineNo), "the export has more than "
+                + settings.maxInjections() + " injections (max_injections in the import profile)");
+          }
+          block = new Block(sampleId, lineNo);
         } else {
           if (block == null) {
             throw new ImportException(sourceName, new SourcePosition(lineNo, 1), "expected a [sample id] line first");
           }
-          block.add(line, lineNo, values, sourceName);
+          AnalyteLine al = block.add(line, lineNo, values, sourceName);
+          if (seenLines.add(al) && seenLines.size() > settings.maxAnalyteLines()) {
+            throw new ImportException(sourceName, new SourcePosition(lineNo, 1), "the export has more than "
+                + settings.maxAnalyteLines() + " analyte lines (max_analyte_lines in the import profile)");
+          }
         }
       }
     } catch (IOException | UncheckedIOException e) {
@@ -120,7 +137,7 @@ public final class BlockImporter implements RunImporter {
       this.line = line;
     }
 
-    void add(String text, int lineNo, ValueReader values, String source) throws ImportException {
+    AnalyteLine add(String text, int lineNo, ValueReader values, String source) throws ImportException {
       int eq = text.indexOf('=');
       if (eq < 0) {
         throw new ImportException(source, new SourcePosition(lineNo, text.length() + 1),
@@ -142,6 +159,7 @@ public final class BlockImporter implements RunImporter {
       }
       lines.put(al, new LineReadings(al, Optional.empty(), readings, Optional.empty(), Optional.empty(),
           Optional.empty(), new SourcePosition(lineNo, 1)));
+      return al;
     }
 
     Injection build(String source, int sequence) throws ImportException {

@@ -78,4 +78,22 @@ class BlockImporterTest extends ImporterContract {
     assertFalse(cd.replicates().get(1).isValid());
     assertEquals(6, cd.replicates().get(1).line());
   }
+
+  // found by BlockFuzzTest (inputs kept in its Inputs folder): a blank key or a blank sample id
+  // reached the model's constructors, which refuse them with IllegalArgumentException
+  @Test
+  @DisplayName("a metadata line with a blank key is ignored, not an exception")
+  void blankMetadataKeyIsIgnored() throws ImportException {
+    RawRun run = read(utf8("#   : zz\n[A]\nCd 228.802 = 1\n"), settings());
+    assertEquals(0, run.metadata().size());
+    assertEquals(1, run.injections().size());
+  }
+
+  @Test
+  @DisplayName("a sample id of white space only (a form feed) is an import error naming its line")
+  void blankSampleIdIsAnImportError() {
+    ImportException e = org.junit.jupiter.api.Assertions.assertThrows(ImportException.class,
+        () -> read(utf8("# run: R1\n[\f]\nCd 228.802 = 1\n"), settings()));
+    assertEquals(SOURCE + ":2:1: the sample id between [ and ] is empty", e.getMessage());
+  }
 }

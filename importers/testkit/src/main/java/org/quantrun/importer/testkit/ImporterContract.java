@@ -28,7 +28,9 @@ import org.quantrun.core.importer.RunImporter;
  * garbage, a 10 MB line, random corruptions of the valid sample).
  *
  * <p>What is checked: an empty file, binary garbage and a missing required column are import
- * errors (the last naming the line and column the subclass expects); every other sample either
+ * errors (the last naming the line and column the subclass expects); the limits of the settings
+ * (file size, also of an endless stream, injections, analyte lines) are import errors naming the
+ * limit; every other sample either
  * reads or is an import error, never any other exception; reading the same bytes twice gives
  * equal runs; detection never throws and stays within 0..1; a valid sample reads with positions
  * on every reading.
@@ -254,6 +256,64 @@ public abstract class ImporterContract {
       readsTwiceEqual(sample, settings());
       importer().detect("sample.txt", head(sample));
     }
+  }
+
+  @Test
+  @DisplayName("an export larger than max_file_bytes is an import error that names the limit")
+  void fileSizeLimitIsAnImportError() {
+    byte[] valid = validSample();
+    ImportSettings small = settings().toBuilder().maxFileBytes(valid.length / 2).build();
+    ImportException e = assertThrows(ImportException.class, () -> read(valid, small));
+    assertTrue(e.getMessage().contains("max_file_bytes"), e.getMessage());
+    assertTrue(e.getMessage().startsWith(SOURCE), e.getMessage());
+  }
+
+  @Test
+  @DisplayName("an endless stream is refused at max_file_bytes, not read until memory runs out")
+  void endlessStreamIsRefusedAtTheSizeLimit() {
+    byte[] valid = validSample();
+    java.io.InputStream endless = new java.io.InputStream() {
+      private long at;
+
+      @Override
+      public int read() {
+        return valid[(int) (at++ % valid.length)] & 0xFF;
+      }
+
+      @Override
+      public int read(byte[] b, int off, int len) {
+        for (int i = 0; i < len; i++) {
+          b[off + i] = valid[(int) (at++ % valid.length)];
+        }
+        return len;
+      }
+    };
+    ImportSettings limited = settings().toBuilder().maxFileBytes(4L << 20).build();
+    try {
+      importer().read(endless, limited, SOURCE);
+      fail("an endless stream must not read as a run");
+    } catch (ImportException e) {
+      assertTrue(e.getMessage().startsWith(SOURCE), e.getMessage());
+    }
+  }
+
+  @Test
+  @DisplayName("more injections than max_injections is an import error that names the limit")
+  void injectionLimitIsAnImportError() {
+    ImportSettings one = settings().toBuilder().maxInjections(1).build();
+    ImportException e = assertThrows(ImportException.class, () -> read(validSample(), one));
+    assertTrue(e.getMessage().contains("more than 1 injections (max_injections"), e.getMessage());
+    assertTrue(e.position().line() >= 1, e.getMessage());
+  }
+
+  @Test
+  @DisplayName("more analyte lines than max_analyte_lines is an import error that names the limit")
+  void analyteLineLimitIsAnImportError() throws ImportException {
+    int lines = read(validSample(), settings()).analyteLines().size();
+    org.junit.jupiter.api.Assumptions.assumeTrue(lines >= 2, "the valid sample has a single analyte line");
+    ImportSettings fewer = settings().toBuilder().maxAnalyteLines(lines - 1).build();
+    ImportException e = assertThrows(ImportException.class, () -> read(validSample(), fewer));
+    assertTrue(e.getMessage().contains("analyte lines (max_analyte_lines"), e.getMessage());
   }
 
   @Test
