@@ -1,7 +1,6 @@
 package org.quantrun.core.processing;
 
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -426,14 +425,5 @@ final class QcEvaluator {
         action.accept(s);
       }
     }
-  }
-
-  /** Counts how many checks of each verdict were made (for summaries). */
-  static Map<Verdict, Integer> tally(List<QcCheck> checks) {
-    Map<Verdict, Integer> m = new HashMap<>();
-    for (QcCheck c : checks) {
-      m.merge(c.verdict(), 1, Integer::sum);
-    }
-    return m;
   }
 }
