@@ -1,5 +1,10 @@
 package org.quantrun.runner;
 
+import java.util.Collection;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -18,17 +23,8 @@ import picocli.CommandLine.Command;
       "1:process: every run processed, outputs complete, but a QC check failed",
       "2:bad input or usage (message on stderr; nothing half-written)",
       "3:internal error (details in the log file)"},
-    footer = {"", "Caution: results need review by a qualified analyst; the lab's accredited method and local regulations govern."},
-    subcommands = {
-      CommandLine.HelpCommand.class,
-      org.quantrun.runner.calibrate.CalibrateCommand.class,
-      CheckCommand.class,
-      org.quantrun.runner.plugins.ImportersCommand.class,
-      org.quantrun.runner.process.ProcessCommand.class,
-      org.quantrun.runner.process.DemoCommand.class,
-      org.quantrun.runner.generate.GenerateCommand.class,
-      org.quantrun.runner.watch.WatchCommand.class,
-    })
+    footer = {"", "Caution: results need review by a qualified analyst; the lab's accredited method and local regulations govern."})
+// sub-commands are registered in code (see COMMANDS), so that a run builds only the one it needs
 public final class Main implements Runnable {
 
   /** Exit code: done, and (for {@code process}) no QC check failed. */
@@ -40,7 +36,26 @@ public final class Main implements Runnable {
   /** Exit code for an internal error (a bug): details are in the log file. */
   public static final int EXIT_INTERNAL_ERROR = 3;
 
+  /**
+   * The sub-commands by name, in the order the help lists them. Each class carries its own
+   * {@code @Command(name = ...)}, which must equal its key here (a test checks).
+   */
+  static final Map<String, Class<?>> COMMANDS = commands();
+
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
+  private static Map<String, Class<?>> commands() {
+    Map<String, Class<?>> m = new LinkedHashMap<>();
+    m.put("help", CommandLine.HelpCommand.class);
+    m.put("calibrate", org.quantrun.runner.calibrate.CalibrateCommand.class);
+    m.put("check", CheckCommand.class);
+    m.put("importers", org.quantrun.runner.plugins.ImportersCommand.class);
+    m.put("process", org.quantrun.runner.process.ProcessCommand.class);
+    m.put("demo", org.quantrun.runner.process.DemoCommand.class);
+    m.put("generate", org.quantrun.runner.generate.GenerateCommand.class);
+    m.put("watch", org.quantrun.runner.watch.WatchCommand.class);
+    return Collections.unmodifiableMap(m);
+  }
 
   /**
    * Runs the command line and exits with its code.
@@ -49,7 +64,42 @@ public final class Main implements Runnable {
    */
   public static void main(String[] args) {
     System.setProperty("java.awt.headless", "true");
-    System.exit(commandLine().execute(args));
+    int code;
+    try {
+      code = forArguments(args).execute(args);
+    } catch (OutOfMemoryError e) {
+      System.err.println("quantrun: " + outOfMemoryAdvice() + "; nothing half-written was left behind");
+      code = EXIT_INTERNAL_ERROR;
+    }
+    System.exit(code);
+  }
+
+  /**
+   * What to tell the user when Java ran out of memory: the heap limit and how to raise it.
+   *
+   * @return e.g. {@code not enough memory (Java heap limit 512 MB): ...}
+   */
+  public static String outOfMemoryAdvice() {
+    long mb = Runtime.getRuntime().maxMemory() / (1024 * 1024);
+    long suggestGb = Math.max(2, (2 * mb + 1023) / 1024);
+    return "not enough memory (Java heap limit " + mb + " MB): give Java more, e.g. QUANTRUN_JAVA_OPTS=-Xmx"
+        + suggestGb + "g, or process fewer exports at once";
+  }
+
+  /**
+   * The command line a run with these arguments needs: when the first argument names a
+   * sub-command (other than {@code help}), only that sub-command is built, since building the
+   * others (picocli reads every option of every command class by reflection) is start-up time
+   * spent for nothing; otherwise (help, {@code --version}, a mistyped command) all of them.
+   *
+   * @param args the arguments
+   * @return the command line
+   */
+  static CommandLine forArguments(String[] args) {
+    if (args.length > 0 && !"help".equals(args[0]) && COMMANDS.containsKey(args[0])) {
+      return commandLine(CommandLine.defaultFactory(), List.of(args[0]));
+    }
+    return commandLine();
   }
 
   /**
@@ -75,7 +125,14 @@ public final class Main implements Runnable {
    * @return the command line
    */
   public static CommandLine commandLine(CommandLine.IFactory factory) {
+    return commandLine(factory, COMMANDS.keySet());
+  }
+
+  private static CommandLine commandLine(CommandLine.IFactory factory, Collection<String> names) {
     CommandLine cl = new CommandLine(new Main(), factory);
+    for (String name : names) {
+      cl.addSubcommand(name, new CommandLine(COMMANDS.get(name), factory));
+    }
     cl.setParameterExceptionHandler(Main::onUsageError);
     cl.setExecutionExceptionHandler(Main::onInternalError);
     return cl;
@@ -89,7 +146,7 @@ public final class Main implements Runnable {
 
   /** An exception no command handled is a bug: one line for the user, the stack trace to the log file. */
   private static int onInternalError(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
-    org.slf4j.LoggerFactory.getLogger(Main.class).error(org.slf4j.MarkerFactory.getMarker("FILE_ONLY"),
+    org.slf4j.LoggerFactory.getLogger(Main.class).error(org.slf4j.MarkerFactory.getMarker(LogSetup.FILE_ONLY),
         "internal error in {}", cl.getCommandSpec().qualifiedName(), e);
     cl.getErr().println(cl.getCommandSpec().qualifiedName() + ": internal error (" + e
         + "); nothing half-written was left behind; details are in the log file");

@@ -49,7 +49,7 @@ import org.slf4j.MarkerFactory;
 public final class RunBatch {
   private static final Logger LOG = LoggerFactory.getLogger(RunBatch.class);
   /** Marks log events the user has already been told about: they go to the log file only. */
-  static final Marker FILE_ONLY = MarkerFactory.getMarker("FILE_ONLY");
+  static final Marker FILE_ONLY = MarkerFactory.getMarker(org.quantrun.runner.LogSetup.FILE_ONLY);
 
   /**
    * An input file and how the audit trail names it.
@@ -380,6 +380,11 @@ public final class RunBatch {
       progress.println(err, req.command() + ": " + name + ": cannot write the results into " + req.outDir() + " (" + e.getMessage() + ")");
       LOG.info(FILE_ONLY, "{}: {}: cannot write results", req.command(), name, e);
       return new Outcome(name, Main.EXIT_INPUT_ERROR, Optional.empty(), Optional.empty());
+    } catch (OutOfMemoryError e) {
+      // the run's data are garbage once this frame is left: the other runs can go on
+      progress.println(err, req.command() + ": " + name + ": " + Main.outOfMemoryAdvice() + "; nothing was written for this run");
+      LOG.error(FILE_ONLY, "{}: out of memory while processing {}", req.command(), name, e);
+      return new Outcome(name, Main.EXIT_INTERNAL_ERROR, Optional.empty(), Optional.empty());
     } catch (RuntimeException | LinkageError e) {
       progress.println(err, req.command() + ": " + name + ": internal error (" + e + "); nothing was written for this run;"
           + " details are in the log file");

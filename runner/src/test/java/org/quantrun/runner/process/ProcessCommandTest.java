@@ -163,6 +163,19 @@ class ProcessCommandTest {
   }
 
   @Test
+  @DisplayName("running out of memory exits 3 with one line that names the heap limit and how to raise it, no folder left behind")
+  void outOfMemoryExitsThree() throws IOException {
+    CommandRun r = run((raw, m, p) -> {
+      throw new OutOfMemoryError("Java heap space");
+    }, "process", DEMO, "--method", DEMO_METHOD, "--profile", LONG_PROFILE, "--out", out());
+    assertEquals(3, r.exitCode());
+    assertEquals(1, r.err().lines().count(), r.err());
+    assertTrue(r.err().contains("not enough memory (Java heap limit "), r.err());
+    assertTrue(r.err().contains("QUANTRUN_JAVA_OPTS=-Xmx"), r.err());
+    assertFalse(Files.exists(dir.resolve("out")) && !names(dir.resolve("out")).isEmpty());
+  }
+
+  @Test
   @DisplayName("several exports give a folder each; the same export twice never overwrites (NAME, NAME-2); the worst code wins")
   void severalExports() throws IOException {
     Path garbage = dir.resolve("garbage.csv");
