@@ -64,13 +64,23 @@ public final class Main implements Runnable {
    */
   public static void main(String[] args) {
     System.setProperty("java.awt.headless", "true");
+    StartupTrace.mark("main entered");
     int code;
     try {
-      code = forArguments(args).execute(args);
+      CommandLine cl = forArguments(args);
+      int n = cl.getSubcommands().size();
+      StartupTrace.mark("command line built (" + n + (n == 1 ? " sub-command)" : " sub-commands)"));
+      if (StartupTrace.on()) {
+        org.slf4j.LoggerFactory.getILoggerFactory();
+        StartupTrace.mark("logging set up");
+      }
+      code = cl.execute(args);
     } catch (OutOfMemoryError e) {
       System.err.println("quantrun: " + outOfMemoryAdvice() + "; nothing half-written was left behind");
       code = EXIT_INTERNAL_ERROR;
     }
+    StartupTrace.mark("done, exit code " + code);
+    StartupTrace.print(System.err);
     System.exit(code);
   }
 

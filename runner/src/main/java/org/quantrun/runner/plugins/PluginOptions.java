@@ -25,6 +25,8 @@ public final class PluginOptions {
       throw new CommandLine.ParameterException(spec.commandLine(),
           "--plugins: folder '" + pluginsDir + "' does not exist");
     }
-    return ImporterPlugins.load(Optional.ofNullable(pluginsDir).orElseGet(ImporterPlugins::defaultPluginsDir));
+    ImporterPlugins.Result r = ImporterPlugins.load(Optional.ofNullable(pluginsDir).orElseGet(ImporterPlugins::defaultPluginsDir));
+    org.quantrun.runner.StartupTrace.mark("plugins loaded (" + r.importers().size() + " importers)");
+    return r;
   }
 }

@@ -29,6 +29,7 @@ import org.quantrun.core.model.RunResult;
 import org.quantrun.core.model.RunVerdict;
 import org.quantrun.core.qc.Verdict;
 import org.quantrun.runner.Main;
+import org.quantrun.runner.StartupTrace;
 import org.quantrun.runner.MethodFiles;
 import org.quantrun.runner.output.Digests;
 import org.quantrun.runner.plugins.ImporterPlugins;
@@ -177,6 +178,7 @@ public final class RunBatch {
     Prepared p;
     try {
       p = prepare(req);
+      StartupTrace.mark("method, profile and prep sheet read");
     } catch (MethodFiles.Failure f) {
       f.lines().forEach(err::println);
       err.flush();
@@ -347,7 +349,9 @@ public final class RunBatch {
       inputs.addAll(p.sharedInputs());
       RunFileImport reader = new RunFileImport(req.plugins().selection());
       RawRun raw = reader.read(export.file(), p.settings());
+      StartupTrace.mark(name + " imported");
       RunResult result = pipeline.process(raw, p.method(), p.prep());
+      StartupTrace.mark(name + " processed");
       List<Audit.PluginRef> plugins = req.plugins().importers().stream()
           .map(li -> new Audit.PluginRef(li.pluginId(), li.version(), li.importer().id(),
               li.source().map(s -> s.getFileName().toString()), li.sha256()))
@@ -356,6 +360,7 @@ public final class RunBatch {
           new Audit.MethodRef(p.method().identity().id(), p.method().identity().version(), p.methodSha()), plugins,
           raw.importerId(), req.arguments());
       Path folder = ResultsFolder.write(req.outDir(), result, p.method(), req.formats(), audit, clock, Main.version());
+      StartupTrace.mark(name + " written");
       int failures = failures(result);
       int code = failures > 0 ? Main.EXIT_QC_FAILED : Main.EXIT_OK;
       String report = req.formats().contains(OutputFormat.HTML) ? folder.resolve("report.html").toString() : folder.toString();
