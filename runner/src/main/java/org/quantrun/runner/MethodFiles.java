@@ -57,12 +57,27 @@ public final class MethodFiles {
    * @throws Failure with one line per problem, and a count line
    */
   public static Method load(Path method, String command) throws Failure {
+    return load(method, null, command);
+  }
+
+  /**
+   * Loads and validates a method from the bytes already read from its file (so that what is parsed
+   * is exactly what was digested for the audit trail), and checks that the import profile it names
+   * exists.
+   *
+   * @param method the method file (for its name, folder and messages)
+   * @param content the file's bytes
+   * @param command the command's name for messages that name no file position
+   * @return the method
+   * @throws Failure with one line per problem, and a count line
+   */
+  public static Method load(Path method, byte[] content, String command) throws Failure {
     String name = name(method);
-    if (!Files.isRegularFile(method)) {
+    if (content == null && !Files.isRegularFile(method)) {
       throw new Failure(List.of(command + ": " + method + (Files.exists(method) ? ": is not a file" : ": no such file")));
     }
     Method m;
-    try (Reader reader = strictUtf8(method)) {
+    try (Reader reader = content == null ? strictUtf8(method) : strictUtf8(new java.io.ByteArrayInputStream(content))) {
       m = MethodLoader.load(reader, name);
     } catch (MethodException e) {
       throw problems(command, name, e.problems());
@@ -126,7 +141,11 @@ public final class MethodFiles {
   }
 
   private static Reader strictUtf8(Path file) throws IOException {
-    return new BufferedReader(new InputStreamReader(Files.newInputStream(file),
+    return strictUtf8(Files.newInputStream(file));
+  }
+
+  private static Reader strictUtf8(java.io.InputStream in) {
+    return new BufferedReader(new InputStreamReader(in,
         StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT)));
   }
 

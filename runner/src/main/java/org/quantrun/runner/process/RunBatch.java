@@ -22,6 +22,7 @@ import org.quantrun.core.importer.ImportSettings;
 import org.quantrun.core.importer.RawRun;
 import org.quantrun.core.method.Method;
 import org.quantrun.core.method.MethodException;
+import org.quantrun.core.method.MethodLoader;
 import org.quantrun.core.method.prep.PrepSheet;
 import org.quantrun.core.method.prep.PrepSheetParser;
 import org.quantrun.core.model.CalibrationStatus;
@@ -153,6 +154,8 @@ public final class RunBatch {
 
   private final RunPipeline pipeline;
   private final Clock clock;
+  /** The method file parsed last: a batch with the same method bytes reuses it (one batch per file in watch). */
+  private volatile ParsedMethod lastMethod;
 
   /**
    * A batch runner.
@@ -261,9 +264,8 @@ public final class RunBatch {
 
   private Prepared prepare(Request req) throws MethodFiles.Failure {
     String cmd = req.command();
-    Method method = MethodFiles.load(req.method().file(), cmd);
     List<Audit.InputFile> inputs = new ArrayList<>();
-    inputs.add(inputFile("method", req.method()));
+    Method method = method(req, inputs);
     String methodSha = inputs.get(0).sha256();
 
     Optional<Input> profile = req.profile().or(() -> MethodFiles.profile(req.method().file(), method).map(Input::of));
@@ -320,6 +322,38 @@ public final class RunBatch {
     }
     return new Prepared(method, methodSha, settings, prep, inputs);
   }
+
+  /**
+   * Reads the method file once, digests what was read and parses exactly that; a method whose bytes
+   * are the same as last time (the watch service runs one batch per file) is not parsed again.
+   */
+  private Method method(Request req, List<Audit.InputFile> inputs) throws MethodFiles.Failure {
+    Input in = req.method();
+    requireFile(req.command(), "--method", in);
+    byte[] bytes;
+    try {
+      if (Files.size(in.file()) > 4L * MethodLoader.MAX_CHARACTERS) {
+        // larger than any method file can be (at most 4 bytes a character): refused by the loader
+        return MethodFiles.load(in.file(), req.command());
+      }
+      bytes = Files.readAllBytes(in.file());
+    } catch (IOException e) {
+      throw new MethodFiles.Failure(List.of(req.command() + ": " + in.name() + ": cannot be read (" + e.getMessage() + ")"));
+    }
+    String sha = Digests.sha256(bytes);
+    inputs.add(new Audit.InputFile("method", in.name(), in.shownPath(), sha, bytes.length));
+    Path key = in.file().toAbsolutePath().normalize();
+    ParsedMethod last = lastMethod;
+    if (last != null && last.file().equals(key) && last.sha256().equals(sha)) {
+      return last.method();
+    }
+    Method method = MethodFiles.load(in.file(), bytes, req.command());
+    lastMethod = new ParsedMethod(key, sha, method);
+    return method;
+  }
+
+  /** The method file parsed last, by its path and digest. */
+  private record ParsedMethod(Path file, String sha256, Method method) {}
 
   private static void requireFile(String cmd, String what, Input in) throws MethodFiles.Failure {
     if (!Files.isRegularFile(in.file())) {
