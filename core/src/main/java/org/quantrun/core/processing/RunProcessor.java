@@ -93,6 +93,7 @@ public final class RunProcessor {
     List<CalibrationResult> calibrations = new ArrayList<>(analytes.size());
     AnalyteResult[][] resultsByLine = new AnalyteResult[analytes.size()][];
     RerunRequest[][] rerunsByLine = new RerunRequest[analytes.size()][];
+    Shared shared = new Shared();
     for (int k = 0; k < analytes.size(); k++) {
       Analyte a = analytes.get(k);
       Optional<String> lineOrMass = a.line().or(() -> a.mass().map(String::valueOf));
@@ -114,9 +115,9 @@ public final class RunProcessor {
         if (x == null) {
           continue;
         }
-        res[c.index()] = ResultWriter.freeze(x, method.reporting());
+        res[c.index()] = ResultWriter.freeze(x, method.reporting(), shared);
         if (c.isRealSample() && x.reportedLine) {
-          rr[c.index()] = rerunOf(x, unbracketedSet.contains(c.index())).orElse(null);
+          rr[c.index()] = rerunOf(x, unbracketedSet.contains(c.index()), shared).orElse(null);
         }
       }
       resultsByLine[k] = res;
@@ -196,7 +197,7 @@ public final class RunProcessor {
     }
   }
 
-  private static Optional<RerunRequest> rerunOf(Draft x, boolean unbracketed) {
+  private static Optional<RerunRequest> rerunOf(Draft x, boolean unbracketed, Shared shared) {
     List<String> reasons = new ArrayList<>();
     Set<ResultFlag> f = x.flags;
     if (f.contains(ResultFlag.CALIBRATION_FAILED) || f.contains(ResultFlag.NOT_CALIBRATED)) {
@@ -232,8 +233,8 @@ public final class RunProcessor {
     }
     Set<String> unique = new LinkedHashSet<>(reasons);
     OptionalInt dilution = f.contains(ResultFlag.OVER_RANGE) ? x.suggestedDilution : OptionalInt.empty();
-    return Optional.of(new RerunRequest(x.injection.position(), x.injection.sampleId(), x.analyte.key(),
-        String.join("; ", unique), dilution));
+    return Optional.of(new RerunRequest(x.injection.position(), x.injection.sampleId(), x.analyteKey,
+        shared.text(String.join("; ", unique)), dilution));
   }
 
   private static String runId(RawRun run) {
