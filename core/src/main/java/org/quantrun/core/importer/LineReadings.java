@@ -10,7 +10,9 @@ import java.util.Optional;
  *
  * @param analyteLine the analyte line
  * @param unit the signal or concentration unit as exported (e.g. {@code cps}), if any
- * @param replicates the replicate readings in export order; may be empty when only a mean is given
+ * @param replicates the replicate readings in export order; may be empty when only a mean is given.
+ *     An unmodifiable list, stored compactly: it makes each {@link Reading} when asked for it, equal
+ *     to the one given (a run may hold millions)
  * @param reportedMean the mean the instrument reported, if exported
  * @param reportedSd the standard deviation the instrument reported, if exported
  * @param remark an instrument remark or flag text for this line, if any
@@ -26,7 +28,7 @@ public record LineReadings(
     SourcePosition position) {
 
   /**
-   * Copies the list and checks for nulls.
+   * Copies the list (into a compact form: see {@code replicates()}) and checks for nulls.
    *
    * @param analyteLine the analyte line
    * @param unit the signal or concentration unit as exported (e.g. {@code cps}), if any
@@ -39,7 +41,7 @@ public record LineReadings(
   public LineReadings {
     Objects.requireNonNull(analyteLine, "analyteLine");
     Objects.requireNonNull(unit, "unit");
-    replicates = List.copyOf(replicates);
+    replicates = ReadingList.copyOf(replicates);
     Objects.requireNonNull(reportedMean, "reportedMean");
     Objects.requireNonNull(reportedSd, "reportedSd");
     Objects.requireNonNull(remark, "remark");

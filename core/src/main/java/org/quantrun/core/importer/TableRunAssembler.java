@@ -33,6 +33,8 @@ public final class TableRunAssembler {
   private final List<Injection> injections = new ArrayList<>();
   private final Map<String, String> aliasToCanonical = new HashMap<>();
   private final Map<String, AnalyteLine> lineCache = new HashMap<>();
+  /** Each unit text once: a large export repeats the same unit in every row. */
+  private final Map<String, Optional<String>> units = new HashMap<>();
 
   private boolean hasHeader;
   private int headerLine;
@@ -477,7 +479,7 @@ public final class TableRunAssembler {
     if (colSd >= 0 && lb.sd.isEmpty() && !cell(cells, colSd).isBlank()) {
       lb.sd = Optional.of(values.read(cell(cells, colSd), name(colSd), line, column(colSd)));
     }
-    lb.add(unit, remark);
+    lb.add(unit, remark, units);
   }
 
   private void wideRow(List<String> cells, int line, String unit, String remark) throws ImportException {
@@ -499,7 +501,7 @@ public final class TableRunAssembler {
         case IGNORED -> { }
         default -> throw new IllegalStateException();
       }
-      lb.add(w.unit().isPresent() ? w.unit().get() : unit, remark);
+      lb.add(w.unit().isPresent() ? w.unit().get() : unit, remark, units);
     }
   }
 
@@ -648,9 +650,9 @@ public final class TableRunAssembler {
       this.position = position;
     }
 
-    void add(String u, String remark) {
+    void add(String u, String remark, Map<String, Optional<String>> units) {
       if (unit.isEmpty() && !u.isBlank()) {
-        unit = Optional.of(u.strip());
+        unit = units.computeIfAbsent(u.strip(), Optional::of);
       }
       if (!remark.isBlank()) {
         String r = remark.strip();

@@ -342,6 +342,7 @@ final class AnalyteLineWork {
 
   private void quantify() {
     drafts = new Draft[raw.length];
+    String key = analyte.key();
     String blankStep = blankSignal.isPresent()
         ? "calibration blank signal " + Text.num(blankSignal.getAsDouble()) + " subtracted" : null;
     String curveStep = fit.map(f -> "read off the " + f.curve().token() + " curve (weighting " + f.weighting().token()
@@ -356,7 +357,7 @@ final class AnalyteLineWork {
       }
       Signal s = raw[c.index()];
       PrepOf p = prep.of(c, analyte.unit());
-      Draft d = new Draft(c, analyte, reportedLine, s == null ? new Signal(new double[0], Double.NaN, Double.NaN, List.of()) : s,
+      Draft d = new Draft(c, analyte, key, reportedLine, s == null ? new Signal(new double[0], Double.NaN, Double.NaN, List.of()) : s,
           p.unit());
       drafts[c.index()] = d;
       d.toSample = p.toSample();

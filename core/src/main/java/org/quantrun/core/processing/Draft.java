@@ -20,6 +20,8 @@ import org.quantrun.core.method.ResultFlag;
 final class Draft {
   final Classified injection;
   final Analyte analyte;
+  /** The analyte line's key, made once per line: every result and check of the line holds it. */
+  final String analyteKey;
   final boolean reportedLine;
   final Signal raw;
   final EnumSet<ResultFlag> flags = EnumSet.noneOf(ResultFlag.class);
@@ -43,9 +45,10 @@ final class Draft {
   /** The reporting limit used by QC rules, in solution units; NaN when unknown. */
   double reportingLimit = Double.NaN;
 
-  Draft(Classified injection, Analyte analyte, boolean reportedLine, Signal raw, String unit) {
+  Draft(Classified injection, Analyte analyte, String analyteKey, boolean reportedLine, Signal raw, String unit) {
     this.injection = injection;
     this.analyte = analyte;
+    this.analyteKey = analyteKey;
     this.reportedLine = reportedLine;
     this.raw = raw;
     this.unit = unit;

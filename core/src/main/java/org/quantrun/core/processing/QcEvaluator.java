@@ -1,11 +1,15 @@
 package org.quantrun.core.processing;
 
 import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.OptionalDouble;
+import java.util.Set;
 import org.quantrun.core.method.Analyte;
 import org.quantrun.core.method.CheckStandard;
 import org.quantrun.core.method.Method;
@@ -51,12 +55,31 @@ final class QcEvaluator {
   private final List<QcCheck> checks = new ArrayList<>();
   private final List<String> findings = new ArrayList<>();
   private boolean runFailed;
+  /** The real samples of each prep batch, in run order. */
+  private final Map<String, List<Classified>> samplesByBatch = new HashMap<>();
+  /** The injections of role sample of each sample id, in run order. */
+  private final Map<String, List<Classified>> samplesById = new HashMap<>();
+  /** The spikes of each parent sample id, in run order. */
+  private final Map<String, List<Classified>> spikesByParent = new HashMap<>();
+  /** The batches whose samples got each batch-wide flag, for the analyte line being evaluated. */
+  private final Map<ResultFlag, Set<String>> flaggedBatches = new EnumMap<>(ResultFlag.class);
 
   QcEvaluator(Method method, List<Classified> injections, SamplePrep prep) {
     this.method = method;
     this.plan = method.qc();
     this.injections = injections;
     this.prep = prep;
+    for (Classified c : injections) {
+      if (c.isRealSample()) {
+        samplesByBatch.computeIfAbsent(prep.batch(c), b -> new ArrayList<>()).add(c);
+      }
+      if (c.role() == SampleRole.SAMPLE) {
+        samplesById.computeIfAbsent(c.sampleId(), b -> new ArrayList<>()).add(c);
+      }
+      if (c.role() == SampleRole.SPIKE && c.parent().isPresent()) {
+        spikesByParent.computeIfAbsent(c.parent().get(), b -> new ArrayList<>()).add(c);
+      }
+    }
   }
 
   List<QcCheck> checks() {
@@ -75,6 +98,7 @@ final class QcEvaluator {
   void evaluate(AnalyteLineWork work) {
     Draft[] d = work.drafts();
     Analyte a = work.analyte();
+    flaggedBatches.clear();
     subtractMethodBlanks(d, a);
     List<Check> ccvChain = new ArrayList<>();
     List<Check> blankChain = new ArrayList<>();
@@ -291,6 +315,9 @@ final class QcEvaluator {
       return;
     }
     org.quantrun.core.method.ReplicateRule rule = plan.replicates();
+    if (x.x0 == 0 || x.x0 < rule.minMultipleOfRl() * x.reportingLimit) {
+      return; // not judged (QcFormulas.replicateRsd would say so), and only failures are recorded
+    }
     CheckOutcome o = QcFormulas.replicateRsd(x.x0, x.x0 * x.raw.rsdPercent() / 100, rule.maxRsd(),
         rule.minMultipleOfRl() * x.reportingLimit);
     if (o.verdict() == Verdict.FAILED) {
@@ -308,7 +335,7 @@ final class QcEvaluator {
     OptionalDouble lo = Double.isInfinite(w.low()) ? OptionalDouble.empty() : OptionalDouble.of(w.low());
     OptionalDouble hi = Double.isInfinite(w.high()) ? OptionalDouble.empty() : OptionalDouble.of(w.high());
     OptionalDouble measured = x.quantified() ? OptionalDouble.of(x.x0) : OptionalDouble.empty();
-    checks.add(new QcCheck(x.injection.position(), x.injection.sampleId(), kind, x.analyte.key(), measured, expected,
+    checks.add(new QcCheck(x.injection.position(), x.injection.sampleId(), kind, x.analyteKey, measured, expected,
         o.value(), o.unit(), lo, hi, o.verdict(), o.reason()));
     if (o.verdict() == Verdict.FAILED) {
       x.trace.add(kind.token() + " failed: " + o.reason().orElse(""));
@@ -359,7 +386,15 @@ final class QcEvaluator {
       return;
     }
     String batch = prep.batch(qc);
-    forSamples(d, s -> prep.batch(s.injection).equals(batch), s -> s.flags.add(flag));
+    if (!flaggedBatches.computeIfAbsent(flag, f -> new HashSet<>()).add(batch)) {
+      return; // this batch's samples have the flag already
+    }
+    for (Classified c : samplesByBatch.getOrDefault(batch, List.of())) {
+      Draft s = d[c.index()];
+      if (s != null) {
+        s.flags.add(flag);
+      }
+    }
   }
 
   private void subtractMethodBlanks(Draft[] d, Analyte a) {
@@ -391,8 +426,8 @@ final class QcEvaluator {
     }
     String id = c.parent().get();
     Draft found = null;
-    for (Classified p : injections) {
-      if (p.sampleId().equals(id) && d[p.index()] != null && p.role() == SampleRole.SAMPLE) {
+    for (Classified p : samplesById.getOrDefault(id, List.of())) {
+      if (d[p.index()] != null) {
         found = d[p.index()];
         if (p.index() > c.index()) {
           break;
@@ -410,8 +445,11 @@ final class QcEvaluator {
   }
 
   private Optional<Draft> spikeOf(Draft[] d, Classified msd) {
-    for (Classified c : injections) {
-      if (c.role() == SampleRole.SPIKE && c.parent().equals(msd.parent()) && d[c.index()] != null) {
+    if (msd.parent().isEmpty()) {
+      return Optional.empty();
+    }
+    for (Classified c : spikesByParent.getOrDefault(msd.parent().get(), List.of())) {
+      if (d[c.index()] != null) {
         return Optional.of(d[c.index()]);
       }
     }

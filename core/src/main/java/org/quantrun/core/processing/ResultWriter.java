@@ -1,7 +1,6 @@
 package org.quantrun.core.processing;
 
 import java.math.RoundingMode;
-import java.util.List;
 import java.util.OptionalDouble;
 import org.quantrun.core.method.ReportingRules;
 import org.quantrun.core.method.ResultFlag;
@@ -48,20 +47,24 @@ final class ResultWriter {
     }
   }
 
-  static AnalyteResult freeze(Draft d, ReportingRules rules) {
-    String reported = reportedText(d, rules);
+  /**
+   * The reported result of a draft; equal texts, traces, flag sets and optionals of the run's
+   * results are shared through {@code shared}.
+   */
+  static AnalyteResult freeze(Draft d, ReportingRules rules, Shared shared) {
+    String reported = shared.text(reportedText(d, rules));
     Signal s = d.raw;
     OptionalDouble mean = s.hasValue() ? OptionalDouble.of(s.mean()) : OptionalDouble.empty();
     double rsd = s.rsdPercent();
     boolean q = d.quantified();
     return new AnalyteResult(
-        d.injection.position(), d.injection.sampleId(), d.injection.role(), d.analyte.key(), d.analyte.name(),
-        d.analyte.line().or(() -> d.analyte.mass().map(String::valueOf)), d.reportedLine,
+        d.injection.position(), d.injection.sampleId(), d.injection.role(), d.analyteKey, d.analyte.name(),
+        shared.value(d.analyte.line().or(() -> d.analyte.mass().map(String::valueOf))), d.reportedLine,
         q ? d.sample(d.x0) : OptionalDouble.empty(), reported, d.unit,
         q ? d.sample(d.halfWidth) : OptionalDouble.empty(),
-        d.sample(d.lod), d.sample(d.loq), d.dilutionFactor, List.copyOf(d.flags), mean,
-        Double.isNaN(rsd) ? OptionalDouble.empty() : OptionalDouble.of(rsd), s.count(), d.limitsFrom,
-        q ? OptionalDouble.of(d.x0) : OptionalDouble.empty(), d.suggestedDilution, d.trace);
+        d.sample(d.lod), d.sample(d.loq), d.dilutionFactor, shared.flags(d.flags), mean,
+        Double.isNaN(rsd) ? OptionalDouble.empty() : OptionalDouble.of(rsd), s.count(), shared.value(d.limitsFrom),
+        q ? OptionalDouble.of(d.x0) : OptionalDouble.empty(), d.suggestedDilution, shared.trace(d.trace));
   }
 
   private static String reportedText(Draft d, ReportingRules rules) {

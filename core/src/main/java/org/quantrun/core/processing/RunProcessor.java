@@ -82,8 +82,20 @@ public final class RunProcessor {
     }
 
     SamplePrep samplePrep = new SamplePrep(method, prep, injections);
-    List<AnalyteLineWork> works = new ArrayList<>();
-    for (Analyte a : method.analytes()) {
+    QcEvaluator qc = new QcEvaluator(method, injections, samplePrep);
+    List<Classified> unbracketed = QcEvaluator.unbracketed(injections);
+    Set<Integer> unbracketedSet = new java.util.HashSet<>();
+    unbracketed.forEach(c -> unbracketedSet.add(c.index()));
+
+    // One analyte line at a time, start to finish: its QC reads only its own drafts, so each
+    // line's drafts and signals are dropped as soon as its results are frozen.
+    List<Analyte> analytes = method.analytes();
+    List<CalibrationResult> calibrations = new ArrayList<>(analytes.size());
+    AnalyteResult[][] resultsByLine = new AnalyteResult[analytes.size()][];
+    RerunRequest[][] rerunsByLine = new RerunRequest[analytes.size()][];
+    Shared shared = new Shared();
+    for (int k = 0; k < analytes.size(); k++) {
+      Analyte a = analytes.get(k);
       Optional<String> lineOrMass = a.line().or(() -> a.mass().map(String::valueOf));
       Signal[] s = table.signals(a.name(), lineOrMass);
       if (s == null) {
@@ -92,50 +104,39 @@ public final class RunProcessor {
       }
       InternalStandardWork.Correction corr = a.internalStandard().map(n -> isWorks.get(n).correction())
           .orElse(InternalStandardWork.none());
-      works.add(new AnalyteLineWork(method, a, injections, s, corr, samplePrep).run());
-    }
-
-    QcEvaluator qc = new QcEvaluator(method, injections, samplePrep);
-    for (AnalyteLineWork w : works) {
-      qc.evaluate(w);
-    }
-    qc.ccvFrequency();
-    List<Classified> unbracketed = QcEvaluator.unbracketed(injections);
-    Set<Integer> unbracketedSet = new java.util.HashSet<>();
-    unbracketed.forEach(c -> unbracketedSet.add(c.index()));
-
-    List<AnalyteResult> results = new ArrayList<>();
-    List<RerunRequest> reruns = new ArrayList<>();
-    Draft[][] byLine = new Draft[works.size()][];
-    for (int k = 0; k < works.size(); k++) {
-      Draft[] d = works.get(k).drafts();
-      byLine[k] = d;
-      Draft previous = null;
+      AnalyteLineWork work = new AnalyteLineWork(method, a, injections, s, corr, samplePrep).run();
+      qc.evaluate(work);
+      Draft[] d = work.drafts();
+      carryOver(d, injections);
+      AnalyteResult[] res = new AnalyteResult[injections.size()];
+      RerunRequest[] rr = new RerunRequest[injections.size()];
       for (Classified c : injections) {
         Draft x = d[c.index()];
-        if (x != null) {
-          ResultWriter.limitFlags(x);
-          if (previous != null && previous.flags.contains(ResultFlag.OVER_RANGE) && x.quantified()
-              && x.x0 > (Double.isNaN(x.loq) ? 0 : x.loq)) {
-            x.flags.add(ResultFlag.CARRY_OVER_SUSPECT);
-            x.trace.add("measured right after the over-range injection " + previous.injection.sampleId()
-                + " (position " + previous.injection.position() + "): possible carry-over");
-          }
-        }
-        if (c.role() != org.quantrun.core.method.SampleRole.IGNORE) {
-          previous = x;
-        }
-      }
-    }
-    for (Classified c : injections) {
-      for (int k = 0; k < works.size(); k++) {
-        Draft x = byLine[k][c.index()];
         if (x == null) {
           continue;
         }
-        results.add(ResultWriter.freeze(x, method.reporting()));
+        res[c.index()] = ResultWriter.freeze(x, method.reporting(), shared);
         if (c.isRealSample() && x.reportedLine) {
-          rerunOf(x, unbracketedSet.contains(c.index())).ifPresent(reruns::add);
+          rr[c.index()] = rerunOf(x, unbracketedSet.contains(c.index()), shared).orElse(null);
+        }
+      }
+      resultsByLine[k] = res;
+      rerunsByLine[k] = rr;
+      calibrations.add(work.calibration());
+    }
+    qc.ccvFrequency();
+
+    List<AnalyteResult> results = new ArrayList<>();
+    List<RerunRequest> reruns = new ArrayList<>();
+    for (Classified c : injections) {
+      for (int k = 0; k < analytes.size(); k++) {
+        AnalyteResult r = resultsByLine[k][c.index()];
+        if (r != null) {
+          results.add(r);
+        }
+        RerunRequest q = rerunsByLine[k][c.index()];
+        if (q != null) {
+          reruns.add(q);
         }
       }
     }
@@ -150,7 +151,7 @@ public final class RunProcessor {
     checks.addAll(qc.checks());
     checks.sort(java.util.Comparator.comparingInt(QcCheck::position));
 
-    List<CalibrationResult> calibrations = works.stream().map(AnalyteLineWork::calibration).toList();
+    calibrations = List.copyOf(calibrations);
     boolean anyAccepted = calibrations.stream().anyMatch(c -> c.reportedLine() && c.status() == CalibrationStatus.ACCEPTED);
     if (!anyAccepted) {
       findings.add("no reported analyte line has an accepted calibration");
@@ -176,7 +177,27 @@ public final class RunProcessor {
     return new RunResult(info, records, calibrations, results, checks, reruns, verdict, findings);
   }
 
-  private static Optional<RerunRequest> rerunOf(Draft x, boolean unbracketed) {
+  /** Sets the limit flags of one line's drafts and marks a possible carry-over after an over-range injection. */
+  private static void carryOver(Draft[] d, List<Classified> injections) {
+    Draft previous = null;
+    for (Classified c : injections) {
+      Draft x = d[c.index()];
+      if (x != null) {
+        ResultWriter.limitFlags(x);
+        if (previous != null && previous.flags.contains(ResultFlag.OVER_RANGE) && x.quantified()
+            && x.x0 > (Double.isNaN(x.loq) ? 0 : x.loq)) {
+          x.flags.add(ResultFlag.CARRY_OVER_SUSPECT);
+          x.trace.add("measured right after the over-range injection " + previous.injection.sampleId()
+              + " (position " + previous.injection.position() + "): possible carry-over");
+        }
+      }
+      if (c.role() != org.quantrun.core.method.SampleRole.IGNORE) {
+        previous = x;
+      }
+    }
+  }
+
+  private static Optional<RerunRequest> rerunOf(Draft x, boolean unbracketed, Shared shared) {
     List<String> reasons = new ArrayList<>();
     Set<ResultFlag> f = x.flags;
     if (f.contains(ResultFlag.CALIBRATION_FAILED) || f.contains(ResultFlag.NOT_CALIBRATED)) {
@@ -212,8 +233,8 @@ public final class RunProcessor {
     }
     Set<String> unique = new LinkedHashSet<>(reasons);
     OptionalInt dilution = f.contains(ResultFlag.OVER_RANGE) ? x.suggestedDilution : OptionalInt.empty();
-    return Optional.of(new RerunRequest(x.injection.position(), x.injection.sampleId(), x.analyte.key(),
-        String.join("; ", unique), dilution));
+    return Optional.of(new RerunRequest(x.injection.position(), x.injection.sampleId(), x.analyteKey,
+        shared.text(String.join("; ", unique)), dilution));
   }
 
   private static String runId(RawRun run) {

@@ -31,6 +31,11 @@ final class SamplePrep {
   private final Method method;
   private final Optional<PrepSheet> sheet;
   private final Map<String, Classified> byId = new HashMap<>();
+  private final List<Classified> injections;
+  /** The prep batch of each injection, by index, found once. */
+  private final String[] batches;
+  /** The prep of each injection, by index, per unit: made once, shared by every line of that unit. */
+  private final Map<ConcentrationUnit, PrepOf[]> preps = new java.util.EnumMap<>(ConcentrationUnit.class);
 
   /**
    * What one injection's results are multiplied by.
@@ -52,10 +57,33 @@ final class SamplePrep {
     for (Classified c : injections) {
       byId.putIfAbsent(c.sampleId(), c);
     }
+    this.injections = injections;
+    this.batches = new String[injections.size()];
+    for (int i = 0; i < batches.length; i++) {
+      batches[i] = batchOf(injections.get(i));
+    }
+  }
+
+  /** Whether {@code c} is the injection of the run at its index (so the per-index tables apply). */
+  private boolean indexed(Classified c) {
+    return c.index() >= 0 && c.index() < injections.size() && injections.get(c.index()) == c;
   }
 
   /** The prep of one injection for the analyte line's unit. */
   PrepOf of(Classified c, ConcentrationUnit unit) {
+    if (!indexed(c)) {
+      return prepOf(c, unit);
+    }
+    PrepOf[] known = preps.computeIfAbsent(unit, u -> new PrepOf[injections.size()]);
+    PrepOf p = known[c.index()];
+    if (p == null) {
+      p = prepOf(c, unit);
+      known[c.index()] = p;
+    }
+    return p;
+  }
+
+  private PrepOf prepOf(Classified c, ConcentrationUnit unit) {
     String solutionUnit = unit.token();
     SampleRole r = c.role();
     boolean prepared = c.isRealSample() || r == SampleRole.METHOD_BLANK || r == SampleRole.LCS;
@@ -78,21 +106,25 @@ final class SamplePrep {
     PrepSheetRow p = row.get();
     PrepSheetLayout layout = scheme.prepSheet().get();
     Optional<Double> factor = p.toSampleBasis(1.0, unit, layout);
-    List<String> trace = new ArrayList<>();
+    List<String> trace = new ArrayList<>(2);
     trace.add("prep sheet line " + p.line() + ": dilution factor " + Text.num(p.dilutionFactor()) + ", "
         + Text.num(p.sampleMass()) + " g made up to " + Text.num(p.finalVolume()) + " mL"
         + (layout.basis() == SolidsBasis.DRY_WEIGHT ? p.solidsFraction().map(f -> ", solids fraction " + Text.num(f)).orElse("") : ""));
     if (factor.isEmpty()) {
-      return new PrepOf(Double.NaN, p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), trace,
+      return new PrepOf(Double.NaN, p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), List.copyOf(trace),
           Optional.of("dry-weight reporting needs a solids fraction, and the prep sheet gives none for " + p.sampleId()));
     }
     trace.add("to " + layout.reportUnit().token() + " " + layout.basis().token() + ": x " + Text.num(factor.get()));
-    return new PrepOf(factor.get(), p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), trace,
+    return new PrepOf(factor.get(), p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), List.copyOf(trace),
         Optional.empty());
   }
 
   /** The prep batch of an injection: its prep-sheet row's (or its parent's), else the whole run. */
   String batch(Classified c) {
+    return indexed(c) ? batches[c.index()] : batchOf(c);
+  }
+
+  private String batchOf(Classified c) {
     Optional<PrepSheetRow> row = sheet.flatMap(s -> s.row(c.sampleId()));
     if (row.isEmpty() && c.parent().isPresent()) {
       row = sheet.flatMap(s -> s.row(c.parent().get()));

@@ -19,13 +19,16 @@ record Signal(double[] values, double mean, double sd, List<String> excluded) {
 
   static Signal of(LineReadings lr) {
     List<Reading> reps = lr.replicates();
-    List<String> excluded = new ArrayList<>();
+    List<String> excluded = List.of(); // most signals leave nothing out
     double[] v = new double[reps.size()];
     int n = 0;
     for (Reading r : reps) {
       if (r.isValid()) {
         v[n++] = r.value();
       } else {
+        if (excluded.isEmpty()) {
+          excluded = new ArrayList<>(2);
+        }
         excluded.add("reading at line " + r.line() + ": " + r.invalidReason().get());
       }
     }
