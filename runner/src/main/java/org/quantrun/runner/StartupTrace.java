@@ -1,8 +1,6 @@
 package org.quantrun.runner;
 
 import java.io.PrintStream;
-import java.time.Duration;
-import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -72,10 +70,10 @@ public final class StartupTrace {
     if (!on) {
       return;
     }
-    // the process's start time has clock-tick resolution (10 ms); the marks are exact among themselves
-    long startOffsetMs = ProcessHandle.current().info().startInstant()
-        .map(s -> Duration.between(s, Instant.now()).toMillis() - (System.nanoTime() - START_NANOS) / 1_000_000)
-        .orElse(0L);
+    // the JVM's own start time (exact to the millisecond; the operating system's process start
+    // time is only exact to the second); read at the end, so it costs the phases nothing
+    long uptimeMs = java.lang.management.ManagementFactory.getRuntimeMXBean().getUptime();
+    long startOffsetMs = Math.max(0, uptimeMs - (System.nanoTime() - START_NANOS) / 1_000_000);
     List<Mark> marks;
     synchronized (MARKS) {
       marks = List.copyOf(MARKS);
