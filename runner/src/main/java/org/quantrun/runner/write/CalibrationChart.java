@@ -104,6 +104,8 @@ public final class CalibrationChart {
     top.setRenderer(0, pointRenderer(new Color(0x1f4e9a), new Color(0xb3261e)));
     top.setDataset(1, curve);
     XYLineAndShapeRenderer lineRenderer = new XYLineAndShapeRenderer(true, false);
+    // the fitted curve as one SVG path, not a line element per segment
+    lineRenderer.setDrawSeriesLineAsPath(true);
     lineRenderer.setSeriesPaint(0, new Color(0x333333));
     lineRenderer.setSeriesStroke(0, new BasicStroke(1.5f));
     top.setRenderer(1, lineRenderer);
