@@ -4,6 +4,8 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.io.OutputStream;
+import java.security.DigestOutputStream;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
@@ -22,6 +24,27 @@ public final class Digests {
       }
     }
     return HexFormat.of().formatHex(md.digest());
+  }
+
+  /**
+   * A stream that computes the SHA-256 of everything written through it, so a file's digest is
+   * known when it has been written, without reading it again.
+   *
+   * @param out where the bytes go
+   * @return the stream; {@link #hex(DigestOutputStream)} gives the digest once it is closed
+   */
+  public static DigestOutputStream sha256(OutputStream out) {
+    return new DigestOutputStream(out, newDigest());
+  }
+
+  /**
+   * The digest of what went through a stream made by {@link #sha256(OutputStream)}, as lower-case hex.
+   *
+   * @param stream the stream, all written
+   * @return the SHA-256
+   */
+  public static String hex(DigestOutputStream stream) {
+    return HexFormat.of().formatHex(stream.getMessageDigest().digest());
   }
 
   /** The SHA-256 of some bytes. */

@@ -1,8 +1,9 @@
 package org.quantrun.runner.write;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
+import com.fasterxml.jackson.core.JsonGenerator;
+import com.fasterxml.jackson.core.util.DefaultPrettyPrinter;
+import java.io.IOException;
+import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.time.Instant;
 import java.util.List;
@@ -120,59 +121,65 @@ public record Audit(
    * @return UTF-8 bytes
    */
   public byte[] json(Instant finished, List<OutputFile> outputs) {
-    ObjectNode root = RunJson.mapper().createObjectNode();
-    root.put("format", FORMAT);
-    root.put("format_version", 1);
-    root.put("quantrun_version", quantrunVersion);
-    root.put("java_version", javaVersion);
-    root.put("user", user);
-    root.put("host", host);
-    root.put("started", started.toString());
-    root.put("finished", finished.toString());
-    ArrayNode args = root.putArray("arguments");
-    arguments.forEach(args::add);
-    ObjectNode m = root.putObject("method");
-    m.put("id", method.id());
-    m.put("version", method.version());
-    m.put("sha256", method.sha256());
-    ArrayNode in = root.putArray("inputs");
-    for (InputFile f : inputs) {
-      ObjectNode o = in.addObject();
-      o.put("role", f.role());
-      o.put("name", f.name());
-      o.put("path", f.path());
-      o.put("sha256", f.sha256());
-      o.put("bytes", f.bytes());
-    }
-    root.put("importer_id", importerId);
-    ArrayNode pl = root.putArray("plugins");
-    for (PluginRef p : plugins) {
-      ObjectNode o = pl.addObject();
-      o.put("plugin_id", p.pluginId());
-      o.put("version", p.version());
-      o.put("importer_id", p.importerId());
-      if (p.jar().isPresent()) {
-        o.put("jar", p.jar().get());
-      } else {
-        o.putNull("jar");
+    StringWriter text = new StringWriter(4096);
+    try (JsonGenerator g = RunJson.factory().createGenerator(text)) {
+      // the layout of Jackson's indented output (DefaultPrettyPrinter), as the file has always had
+      g.setPrettyPrinter(new DefaultPrettyPrinter());
+      g.writeStartObject();
+      g.writeStringField("format", FORMAT);
+      g.writeNumberField("format_version", 1);
+      g.writeStringField("quantrun_version", quantrunVersion);
+      g.writeStringField("java_version", javaVersion);
+      g.writeStringField("user", user);
+      g.writeStringField("host", host);
+      g.writeStringField("started", started.toString());
+      g.writeStringField("finished", finished.toString());
+      g.writeArrayFieldStart("arguments");
+      for (String a : arguments) {
+        g.writeString(a);
       }
-      if (p.sha256().isPresent()) {
-        o.put("sha256", p.sha256().get());
-      } else {
-        o.putNull("sha256");
+      g.writeEndArray();
+      g.writeObjectFieldStart("method");
+      g.writeStringField("id", method.id());
+      g.writeStringField("version", method.version());
+      g.writeStringField("sha256", method.sha256());
+      g.writeEndObject();
+      g.writeArrayFieldStart("inputs");
+      for (InputFile f : inputs) {
+        g.writeStartObject();
+        g.writeStringField("role", f.role());
+        g.writeStringField("name", f.name());
+        g.writeStringField("path", f.path());
+        g.writeStringField("sha256", f.sha256());
+        g.writeNumberField("bytes", f.bytes());
+        g.writeEndObject();
       }
-    }
-    ArrayNode out = root.putArray("outputs");
-    for (OutputFile f : outputs) {
-      ObjectNode o = out.addObject();
-      o.put("name", f.name());
-      o.put("sha256", f.sha256());
-      o.put("bytes", f.bytes());
-    }
-    try {
-      return RunJson.mapper().writeValueAsString(root).concat("\n").getBytes(StandardCharsets.UTF_8);
-    } catch (JsonProcessingException e) {
+      g.writeEndArray();
+      g.writeStringField("importer_id", importerId);
+      g.writeArrayFieldStart("plugins");
+      for (PluginRef p : plugins) {
+        g.writeStartObject();
+        g.writeStringField("plugin_id", p.pluginId());
+        g.writeStringField("version", p.version());
+        g.writeStringField("importer_id", p.importerId());
+        g.writeStringField("jar", p.jar().orElse(null));
+        g.writeStringField("sha256", p.sha256().orElse(null));
+        g.writeEndObject();
+      }
+      g.writeEndArray();
+      g.writeArrayFieldStart("outputs");
+      for (OutputFile f : outputs) {
+        g.writeStartObject();
+        g.writeStringField("name", f.name());
+        g.writeStringField("sha256", f.sha256());
+        g.writeNumberField("bytes", f.bytes());
+        g.writeEndObject();
+      }
+      g.writeEndArray();
+      g.writeEndObject();
+    } catch (IOException e) {
       throw new IllegalStateException("cannot write audit.json", e);
     }
+    return text.toString().concat("\n").getBytes(StandardCharsets.UTF_8);
   }
 }

@@ -14,6 +14,7 @@ import org.jfree.chart.plot.CombinedDomainXYPlot;
 import org.jfree.chart.plot.ValueMarker;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.text.TextUtils;
 import org.jfree.chart.title.LegendTitle;
 import org.jfree.chart.ui.RectangleEdge;
 import org.jfree.data.xy.XYSeries;
@@ -37,8 +38,15 @@ public final class CalibrationChart {
   static final int HEIGHT = 440;
   private static final int CURVE_POINTS = 80;
 
+  /** Decimals of coordinates in the SVG: a hundredth of a user unit, far below a screen or printer dot. */
+  private static final int GEOMETRY_DECIMALS = 2;
+  /** Decimals of transform matrices (rotated axis labels). */
+  private static final int TRANSFORM_DECIMALS = 4;
+
   static {
     System.setProperty("java.awt.headless", "true");
+    // rotated axis labels as SVG text (drawString under a rotation), not as outlines of every glyph
+    TextUtils.setUseDrawRotatedStringWorkaround(false);
   }
 
   private CalibrationChart() {}
@@ -96,6 +104,8 @@ public final class CalibrationChart {
     top.setRenderer(0, pointRenderer(new Color(0x1f4e9a), new Color(0xb3261e)));
     top.setDataset(1, curve);
     XYLineAndShapeRenderer lineRenderer = new XYLineAndShapeRenderer(true, false);
+    // the fitted curve as one SVG path, not a line element per segment
+    lineRenderer.setDrawSeriesLineAsPath(true);
     lineRenderer.setSeriesPaint(0, new Color(0x333333));
     lineRenderer.setSeriesStroke(0, new BasicStroke(1.5f));
     top.setRenderer(1, lineRenderer);
@@ -128,8 +138,48 @@ public final class CalibrationChart {
 
     SVGGraphics2D g2 = new SVGGraphics2D(WIDTH, HEIGHT);
     g2.setDefsKeyPrefix(id + "-");
+    g2.setGeomDoubleConverter(v -> decimal(v, GEOMETRY_DECIMALS));
+    g2.setTransformDoubleConverter(v -> decimal(v, TRANSFORM_DECIMALS));
     chart.draw(g2, new Rectangle(0, 0, WIDTH, HEIGHT));
     return Optional.of(g2.getSVGElement(id, false, new ViewBox(0, 0, WIDTH, HEIGHT), null, null));
+  }
+
+  private static final long[] SCALES = {1, 10, 100, 1000, 10000};
+
+  /**
+   * A coordinate for the SVG: rounded to {@code decimals} places, trailing zeros dropped
+   * ({@code 82}, {@code 376.2}, {@code -0.05}); very large values (never drawn) as {@link Double#toString}.
+   */
+  static String decimal(double v, int decimals) {
+    long scale = SCALES[decimals];
+    if (!(Math.abs(v) < 1e12)) {
+      return Double.toString(v);
+    }
+    long r = Math.round(v * scale);
+    if (r == 0) {
+      return "0";
+    }
+    StringBuilder b = new StringBuilder(12);
+    if (r < 0) {
+      b.append('-');
+      r = -r;
+    }
+    b.append(r / scale);
+    long fraction = r % scale;
+    if (fraction != 0) {
+      int places = decimals;
+      while (fraction % 10 == 0) {
+        fraction /= 10;
+        places--;
+      }
+      b.append('.');
+      String f = Long.toString(fraction);
+      for (int i = f.length(); i < places; i++) {
+        b.append('0');
+      }
+      b.append(f);
+    }
+    return b.toString();
   }
 
   private static NumberAxis axis(String text, Font tick, Font label) {

@@ -184,19 +184,17 @@ public final class HtmlReport {
 
   /** Buffered output of the page; a write failure surfaces as {@link UncheckedIOException}. */
   private static final class Sink {
-    private static final int CHUNK = 1 << 16;
-    private final Writer out;
-    private final StringBuilder buffer = new StringBuilder(CHUNK + 1024);
+    private final ChunkedText out;
+    final StringBuilder buffer;
 
     Sink(Writer out) {
-      this.out = out;
+      this.out = new ChunkedText(out);
+      this.buffer = this.out.text;
     }
 
     Sink append(String text) {
       buffer.append(text);
-      if (buffer.length() >= CHUNK) {
-        flush();
-      }
+      flushIfFull();
       return this;
     }
 
@@ -205,10 +203,16 @@ public final class HtmlReport {
       return this;
     }
 
+    void flushIfFull() {
+      try {
+        out.flushIfFull();
+      } catch (IOException e) {
+        throw new UncheckedIOException(e);
+      }
+    }
+
     void flush() {
       try {
-        out.write(buffer.toString());
-        buffer.setLength(0);
         out.flush();
       } catch (IOException e) {
         throw new UncheckedIOException(e);
@@ -356,34 +360,59 @@ public final class HtmlReport {
     table(h, t, cols, id);
   }
 
+  private static final int OTHER = 0;
+  private static final int VERDICT = 1;
+  private static final int FLAGS = 2;
+  private static final int NOWRAP = 3;
+  private static final int SAMPLE_ID = 4;
+
   private static void table(Sink h, Table t, List<Col> cols, String cssClass) {
-    int[] idx = cols.stream().mapToInt(c -> t.column(c.column())).toArray();
+    int[] idx = new int[cols.size()];
+    int[] kind = new int[cols.size()];
+    for (int i = 0; i < idx.length; i++) {
+      String column = cols.get(i).column();
+      idx[i] = t.column(column);
+      kind[i] = switch (column) {
+        case "verdict" -> VERDICT;
+        case "flags" -> FLAGS;
+        case "line", "analyte" -> NOWRAP;
+        case "sample_id" -> SAMPLE_ID;
+        default -> OTHER;
+      };
+    }
     h.append("<table class=\"").append(cssClass).append("\" data-table=\"").append(t.name()).append("\">\n<thead><tr>");
     for (Col c : cols) {
       h.append("<th scope=\"col\" data-column=\"").append(c.column()).append("\">").append(Html.escape(c.label())).append("</th>");
     }
     h.append("</tr></thead>\n<tbody>\n");
+    StringBuilder b = h.buffer;
     for (List<Cell> row : t.rows()) {
-      h.append("<tr>");
+      b.append("<tr>");
       for (int i = 0; i < idx.length; i++) {
         Cell v = row.get(idx[i]);
-        String column = cols.get(i).column();
-        if (column.equals("verdict")) {
-          h.append("<td class=\"").append(cls(v.plain())).append("\">").append(verdictSymbol(v.plain())).append(' ')
-              .append(Html.escape(v.plain())).append("</td>");
+        int k = kind[i];
+        if (k == VERDICT) {
+          String token = v.plain();
+          b.append("<td class=\"").append(cls(token)).append("\">").append(verdictSymbol(token)).append(' ');
+          Html.escape(b, token);
+          b.append("</td>");
         } else if (v instanceof Cell.Num || v instanceof Cell.Whole) {
-          h.append("<td class=\"num\">").append(Html.cell(v)).append("</td>");
-        } else if (column.equals("flags")) {
+          b.append("<td class=\"num\">");
+          Html.cell(b, v);
+          b.append("</td>");
+        } else if (k == FLAGS) {
           // a break opportunity after each separator; the text stays exactly that of results.csv
-          h.append("<td>").append(Html.cell(v).replace(";", ";<wbr>")).append("</td>");
-        } else if (column.equals("line") || column.equals("analyte") || (column.equals("sample_id") && v.plain().length() <= 16)) {
-          // short ids and line names stay on one line; a long id may wrap rather than widen the page
-          h.append("<td class=\"nowrap\">").append(Html.cell(v)).append("</td>");
+          b.append("<td>").append(Html.cell(v).replace(";", ";<wbr>")).append("</td>");
         } else {
-          h.append("<td>").append(Html.cell(v)).append("</td>");
+          // short ids and line names stay on one line; a long id may wrap rather than widen the page
+          boolean nowrap = k == NOWRAP || k == SAMPLE_ID && v.plain().length() <= 16;
+          b.append(nowrap ? "<td class=\"nowrap\">" : "<td>");
+          Html.cell(b, v);
+          b.append("</td>");
         }
       }
-      h.append("</tr>\n");
+      b.append("</tr>\n");
+      h.flushIfFull();
     }
     h.append("</tbody>\n</table>\n");
   }

@@ -7,7 +7,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
-import java.util.stream.Collectors;
 import org.quantrun.core.Token;
 import org.quantrun.core.calibration.CalibrationFit;
 import org.quantrun.core.method.ReportingRules;
@@ -87,7 +86,14 @@ public record ResultTables(
    * @return the text, empty when there are no flags
    */
   public static String flagText(List<ResultFlag> flags, ReportingRules reporting) {
-    return flags.stream().map(reporting::qualifier).collect(Collectors.joining(";"));
+    if (flags.isEmpty()) {
+      return "";
+    }
+    StringBuilder b = new StringBuilder(reporting.qualifier(flags.get(0)));
+    for (int i = 1; i < flags.size(); i++) {
+      b.append(';').append(reporting.qualifier(flags.get(i)));
+    }
+    return b.toString();
   }
 
   private static Table results(RunResult run, ReportingRules reporting) {

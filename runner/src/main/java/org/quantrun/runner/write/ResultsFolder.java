@@ -1,12 +1,15 @@
 package org.quantrun.runner.write;
 
 import java.io.BufferedOutputStream;
+import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.OutputStream;
+import java.io.OutputStreamWriter;
 import java.io.Writer;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.security.DigestOutputStream;
 import java.time.Clock;
 import java.util.ArrayList;
 import java.util.List;
@@ -59,38 +62,46 @@ public final class ResultsFolder {
     ResultTables tables = ResultTables.of(run, method.reporting());
     try (OutputFolder out = OutputFolder.create(parent, folderName(run))) {
       Path dir = out.staging();
-      List<String> names = new ArrayList<>();
+      List<Audit.OutputFile> written = new ArrayList<>();
       if (formats.contains(OutputFormat.CSV)) {
         for (Table t : List.of(tables.results(), tables.resultsWide(), tables.calibration(), tables.calibrationLevels(),
             tables.qc(), tables.reruns())) {
           String name = t.name() + ".csv";
-          try (Writer w = Files.newBufferedWriter(dir.resolve(name), StandardCharsets.UTF_8)) {
+          DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve(name)));
+          try (Writer w = textWriter(digest)) {
             CsvOutput.write(t, w);
           }
-          names.add(name);
+          written.add(output(dir, name, digest));
         }
       }
       if (formats.contains(OutputFormat.JSON)) {
-        try (OutputStream o = new BufferedOutputStream(Files.newOutputStream(dir.resolve("run.json")), 1 << 16)) {
+        DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve("run.json")));
+        try (OutputStream o = new BufferedOutputStream(digest, 1 << 16)) {
           RunJson.write(run, tables, o);
         }
-        names.add("run.json");
+        written.add(output(dir, "run.json", digest));
       }
       if (formats.contains(OutputFormat.HTML)) {
         HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
             method.identity().description(), audit.inputs());
-        try (Writer w = Files.newBufferedWriter(dir.resolve("report.html"), StandardCharsets.UTF_8)) {
+        DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve("report.html")));
+        try (Writer w = textWriter(digest)) {
           HtmlReport.write(w, run, tables, method.reporting(), ctx);
         }
-        names.add("report.html");
-      }
-      List<Audit.OutputFile> written = new ArrayList<>();
-      for (String name : names) {
-        Path f = dir.resolve(name);
-        written.add(new Audit.OutputFile(name, Digests.sha256(f), Files.size(f)));
+        written.add(output(dir, "report.html", digest));
       }
       Files.write(dir.resolve(AUDIT), audit.json(clock.instant(), written));
       return out.publish();
     }
+  }
+
+  /** UTF-8 text into a stream, as {@link Files#newBufferedWriter(Path, java.nio.charset.Charset, java.nio.file.OpenOption...)} writes it. */
+  private static Writer textWriter(OutputStream out) {
+    return new BufferedWriter(new OutputStreamWriter(out, StandardCharsets.UTF_8.newEncoder()));
+  }
+
+  /** A file written, with the SHA-256 of the bytes that went into it and its size on disk. */
+  private static Audit.OutputFile output(Path dir, String name, DigestOutputStream digest) throws IOException {
+    return new Audit.OutputFile(name, Digests.hex(digest), Files.size(dir.resolve(name)));
   }
 }

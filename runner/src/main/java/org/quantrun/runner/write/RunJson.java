@@ -1,11 +1,12 @@
 package org.quantrun.runner.write;
 
 import com.fasterxml.jackson.core.JsonEncoding;
+import com.fasterxml.jackson.core.JsonFactory;
 import com.fasterxml.jackson.core.JsonGenerator;
 import com.fasterxml.jackson.core.JsonStreamContext;
+import com.fasterxml.jackson.core.SerializableString;
+import com.fasterxml.jackson.core.io.SerializedString;
 import com.fasterxml.jackson.core.util.MinimalPrettyPrinter;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.util.List;
@@ -28,7 +29,10 @@ public final class RunJson {
   /** The version of this layout; raised when a key changes meaning or is removed. */
   public static final int FORMAT_VERSION = 1;
 
-  private static final ObjectMapper MAPPER = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+  /** Jackson's streaming core only: no object mapper, whose classes a single run would load for nothing. */
+  private static final JsonFactory FACTORY = new JsonFactory();
+  private static final SerializedString FLAG_NAMES = new SerializedString("flag_names");
+  private static final SerializedString TRACE = new SerializedString("trace");
 
   private RunJson() {}
 
@@ -41,7 +45,7 @@ public final class RunJson {
    * @throws IOException if writing fails
    */
   public static void write(RunResult run, ResultTables tables, OutputStream out) throws IOException {
-    JsonGenerator g = MAPPER.getFactory().createGenerator(out, JsonEncoding.UTF8);
+    JsonGenerator g = FACTORY.createGenerator(out, JsonEncoding.UTF8);
     g.disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
     g.setPrettyPrinter(new RecordPerLine());
     g.writeStartObject();
@@ -67,18 +71,20 @@ public final class RunJson {
     Table cal = tables.calibration();
     Table levels = tables.calibrationLevels();
     int key = levels.column("analyte_key");
+    SerializableString[] calKeys = keys(cal);
+    SerializableString[] levelKeys = keys(levels);
     g.writeArrayFieldStart("calibrations");
     for (int i = 0; i < run.calibrations().size(); i++) {
       CalibrationResult c = run.calibrations().get(i);
-        g.writeStartObject();
-      fields(g, cal.columns(), cal.rows().get(i));
+      g.writeStartObject();
+      fields(g, calKeys, cal.rows().get(i));
       strings(g, "reasons", c.reasons());
       strings(g, "trace", c.trace());
       g.writeArrayFieldStart("levels");
       for (List<Cell> row : levels.rows()) {
         if (row.get(key).plain().equals(c.analyteKey())) {
           g.writeStartObject();
-          fields(g, levels.columns(), row);
+          fields(g, levelKeys, row);
           g.writeEndObject();
         }
       }
@@ -88,13 +94,24 @@ public final class RunJson {
     g.writeEndArray();
 
     Table results = tables.results();
+    SerializableString[] resultKeys = keys(results);
     g.writeArrayFieldStart("results");
     for (int i = 0; i < run.results().size(); i++) {
       AnalyteResult r = run.results().get(i);
-        g.writeStartObject();
-      fields(g, results.columns(), results.rows().get(i));
-      strings(g, "flag_names", r.flags().stream().map(Token::token).toList());
-      strings(g, "trace", r.trace());
+      g.writeStartObject();
+      fields(g, resultKeys, results.rows().get(i));
+      g.writeFieldName(FLAG_NAMES);
+      g.writeStartArray();
+      for (Token f : r.flags()) {
+        g.writeString(f.token());
+      }
+      g.writeEndArray();
+      g.writeFieldName(TRACE);
+      g.writeStartArray();
+      for (String t : r.trace()) {
+        g.writeString(t);
+      }
+      g.writeEndArray();
       g.writeEndObject();
     }
     g.writeEndArray();
@@ -159,29 +176,40 @@ public final class RunJson {
   }
 
   private static void array(JsonGenerator g, String key, Table table) throws IOException {
+    SerializableString[] keys = keys(table);
     g.writeArrayFieldStart(key);
     for (List<Cell> row : table.rows()) {
-        g.writeStartObject();
-      fields(g, table.columns(), row);
+      g.writeStartObject();
+      fields(g, keys, row);
       g.writeEndObject();
     }
     g.writeEndArray();
   }
 
-  private static void fields(JsonGenerator g, List<String> columns, List<Cell> row) throws IOException {
-    for (int i = 0; i < columns.size(); i++) {
-      String k = columns.get(i);
+  /** The column names, each quoted and encoded once for the whole table. */
+  private static SerializableString[] keys(Table table) {
+    List<String> columns = table.columns();
+    SerializableString[] keys = new SerializableString[columns.size()];
+    for (int i = 0; i < keys.length; i++) {
+      keys[i] = new SerializedString(columns.get(i));
+    }
+    return keys;
+  }
+
+  private static void fields(JsonGenerator g, SerializableString[] keys, List<Cell> row) throws IOException {
+    for (int i = 0; i < keys.length; i++) {
+      g.writeFieldName(keys[i]);
       Cell c = row.get(i);
       if (c instanceof Cell.Text t) {
-        g.writeStringField(k, t.text());
+        g.writeString(t.text());
       } else if (c instanceof Cell.Num n) {
-        g.writeNumberField(k, n.value());
+        g.writeNumber(n.value());
       } else if (c instanceof Cell.Whole w) {
-        g.writeNumberField(k, w.value());
+        g.writeNumber(w.value());
       } else if (c instanceof Cell.Bool b) {
-        g.writeBooleanField(k, b.value());
+        g.writeBoolean(b.value());
       } else {
-        g.writeNullField(k);
+        g.writeNull();
       }
     }
   }
@@ -194,8 +222,12 @@ public final class RunJson {
     g.writeEndArray();
   }
 
-  /** The shared mapper, configured for indented output (the audit trail uses it). */
-  static ObjectMapper mapper() {
-    return MAPPER;
+  /**
+   * The shared streaming factory (the audit trail uses it too).
+   *
+   * @return the factory
+   */
+  static JsonFactory factory() {
+    return FACTORY;
   }
 }
