@@ -60,11 +60,14 @@ echo "(a) typical run (150 x 30 x 3 = 13,500 readings), median of 5:"
 echo "    quantrun --version   ${tv} ms"
 echo "    quantrun process     ${tp} ms (all outputs, HTML report included)"
 awk -v p="$tp" -v v="$tv" 'BEGIN {printf "    ratio                %.2f (goal <= 1.5)\n", p / v}'
+echo "    where one such run spends its time (QUANTRUN_TRACE_STARTUP=1):"
+{ QUANTRUN_TRACE_STARTUP=1 $q process "$work/a/TYP.csv" --method "$work/a/TYP-method.yaml" --out "$work/a/trace" \
+  2>&1 >/dev/null || true; } | sed 's/^/    /'
 echo
 
 # ---------------------------------------------------------------- (b) and growth
 if [ "$quick" = quick ]; then sizes="50000 100000 200000 400000"; else sizes="250000 500000 1000000 2000000"; fi
-echo "(b) large runs, 70 lines x 3 readings, -Xmx512m, CSV and JSON outputs:"
+echo "(b) large runs, 70 lines x 3 readings, -Xmx512m, CSV and JSON outputs, full optimiser at every size:"
 printf '    %10s %10s %9s %10s %13s %10s %8s\n' readings injections MB wall_ms "readings/s" MB/s peak_MB
 prev=""
 growth=()
@@ -72,7 +75,7 @@ for n in $sizes; do
   inj=$(( n / 210 ))
   $q generate --out "$work/b$n" --name BIG --injections "$inj" --analytes 70 --replicates 3 >/dev/null
   bytes=$(stat -c %s "$work/b$n/BIG.csv")
-  QUANTRUN_JAVA_OPTS=-Xmx512m run $q process "$work/b$n/BIG.csv" --method "$work/b$n/BIG-method.yaml" \
+  QUANTRUN_JIT=full QUANTRUN_JAVA_OPTS=-Xmx512m run $q process "$work/b$n/BIG.csv" --method "$work/b$n/BIG-method.yaml" \
     --out "$work/b$n/out" --formats csv,json
   readings=$(( inj * 210 ))
   awk -v r="$readings" -v i="$inj" -v b="$bytes" -v t="$WALL_MS" -v k="$PEAK_KB" \
