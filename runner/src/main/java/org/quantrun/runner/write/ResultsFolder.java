@@ -66,29 +66,28 @@ public final class ResultsFolder {
       if (formats.contains(OutputFormat.CSV)) {
         for (Table t : List.of(tables.results(), tables.resultsWide(), tables.calibration(), tables.calibrationLevels(),
             tables.qc(), tables.reruns())) {
-          String name = t.name() + ".csv";
-          DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve(name)));
-          try (Writer w = textWriter(digest)) {
-            CsvOutput.write(t, w);
-          }
-          written.add(output(dir, name, digest));
+          written.add(file(dir, t.name() + ".csv", o -> {
+            try (Writer w = textWriter(o)) {
+              CsvOutput.write(t, w);
+            }
+          }));
         }
       }
       if (formats.contains(OutputFormat.JSON)) {
-        DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve("run.json")));
-        try (OutputStream o = new BufferedOutputStream(digest, 1 << 16)) {
-          RunJson.write(run, tables, o);
-        }
-        written.add(output(dir, "run.json", digest));
+        written.add(file(dir, "run.json", o -> {
+          try (OutputStream b = new BufferedOutputStream(o, 1 << 16)) {
+            RunJson.write(run, tables, b);
+          }
+        }));
       }
       if (formats.contains(OutputFormat.HTML)) {
         HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
             method.identity().description(), audit.inputs());
-        DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve("report.html")));
-        try (Writer w = textWriter(digest)) {
-          HtmlReport.write(w, run, tables, method.reporting(), ctx);
-        }
-        written.add(output(dir, "report.html", digest));
+        written.add(file(dir, "report.html", o -> {
+          try (Writer w = textWriter(o)) {
+            HtmlReport.write(w, run, tables, method.reporting(), ctx);
+          }
+        }));
       }
       Files.write(dir.resolve(AUDIT), audit.json(clock.instant(), written));
       return out.publish();
@@ -100,8 +99,22 @@ public final class ResultsFolder {
     return new BufferedWriter(new OutputStreamWriter(out, StandardCharsets.UTF_8.newEncoder()));
   }
 
-  /** A file written, with the SHA-256 of the bytes that went into it and its size on disk. */
-  private static Audit.OutputFile output(Path dir, String name, DigestOutputStream digest) throws IOException {
+  /** Writes the bytes of one file into a stream and closes it. */
+  @FunctionalInterface
+  private interface FileBody {
+    void writeTo(OutputStream out) throws IOException;
+  }
+
+  /**
+   * Writes one file of the folder, digesting its bytes on their way to disk.
+   *
+   * @return the file with the SHA-256 of the bytes that went into it and its size on disk
+   */
+  private static Audit.OutputFile file(Path dir, String name, FileBody body) throws IOException {
+    DigestOutputStream digest = Digests.sha256(Files.newOutputStream(dir.resolve(name)));
+    try (digest) {
+      body.writeTo(digest);
+    }
     return new Audit.OutputFile(name, Digests.hex(digest), Files.size(dir.resolve(name)));
   }
 }
