@@ -21,7 +21,7 @@ public sealed interface Cell {
   record Text(String text) implements Cell {}
 
   /**
-   * A number, written with full double precision ({@link Double#toString(double)}).
+   * A number, written with full double precision ({@link Digits#shortest(double)}).
    *
    * @param value a finite number
    */
@@ -116,7 +116,7 @@ public sealed interface Cell {
 
   /**
    * The cell as plain text, the way a CSV file holds it before spreadsheet neutralising: numbers
-   * by {@link Double#toString(double)}, an absent value as empty text.
+   * by {@link Digits#shortest(double)}, an absent value as empty text.
    *
    * @return the text
    */
@@ -125,7 +125,7 @@ public sealed interface Cell {
       return t.text();
     }
     if (this instanceof Num n) {
-      return Double.toString(n.value());
+      return Digits.shortest(n.value());
     }
     if (this instanceof Whole w) {
       return Long.toString(w.value());

@@ -65,8 +65,8 @@ public final class CsvOutput {
         }
         Cell c = row.get(i);
         if (c instanceof Cell.Num n) {
-          // the digits of Double.toString: never a character that needs quoting
-          t.append(n.value());
+          // digits, a point, a minus sign or an exponent: never a character that needs quoting
+          t.append(Digits.shortest(n.value()));
         } else if (c instanceof Cell.Whole w) {
           t.append(w.value());
         } else if (c instanceof Cell.Text x) {

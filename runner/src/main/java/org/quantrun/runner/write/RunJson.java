@@ -2,6 +2,7 @@ package org.quantrun.runner.write;
 
 import com.fasterxml.jackson.core.JsonEncoding;
 import com.fasterxml.jackson.core.JsonFactory;
+import com.fasterxml.jackson.core.StreamWriteFeature;
 import com.fasterxml.jackson.core.JsonGenerator;
 import com.fasterxml.jackson.core.JsonStreamContext;
 import com.fasterxml.jackson.core.SerializableString;
@@ -29,8 +30,12 @@ public final class RunJson {
   /** The version of this layout; raised when a key changes meaning or is removed. */
   public static final int FORMAT_VERSION = 1;
 
-  /** Jackson's streaming core only: no object mapper, whose classes a single run would load for nothing. */
-  private static final JsonFactory FACTORY = new JsonFactory();
+  /**
+   * Jackson's streaming core only: no object mapper, whose classes a single run would load for
+   * nothing. Numbers are written as their shortest exact decimal ({@link Digits#shortest(double)}).
+   */
+  private static final JsonFactory FACTORY =
+      JsonFactory.builder().enable(StreamWriteFeature.USE_FAST_DOUBLE_WRITER).build();
   private static final SerializedString FLAG_NAMES = new SerializedString("flag_names");
   private static final SerializedString TRACE = new SerializedString("trace");
 
