@@ -21,11 +21,61 @@ public sealed interface Cell {
   record Text(String text) implements Cell {}
 
   /**
-   * A number, written with full double precision ({@link Digits#shortest(double)}).
-   *
-   * @param value a finite number
+   * A number, written with full double precision ({@link Digits#shortest(double)}). Its text is
+   * made once, when first asked for, so the CSV file and {@code run.json} share it.
    */
-  record Num(double value) implements Cell {}
+  final class Num implements Cell {
+    private final double value;
+    /** The text, once made; a race only makes the same text twice. */
+    private String text;
+
+    /**
+     * A number cell.
+     *
+     * @param value a finite number
+     */
+    public Num(double value) {
+      this.value = value;
+    }
+
+    /**
+     * The number.
+     *
+     * @return the value
+     */
+    public double value() {
+      return value;
+    }
+
+    /**
+     * The number's text, the shortest decimal that reads back as the same double.
+     *
+     * @return the text
+     */
+    public String text() {
+      String t = text;
+      if (t == null) {
+        t = Digits.shortest(value);
+        text = t;
+      }
+      return t;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+      return o instanceof Num n && Double.compare(n.value, value) == 0;
+    }
+
+    @Override
+    public int hashCode() {
+      return Double.hashCode(value);
+    }
+
+    @Override
+    public String toString() {
+      return "Num[value=" + value + "]";
+    }
+  }
 
   /**
    * A whole number.
@@ -125,7 +175,7 @@ public sealed interface Cell {
       return t.text();
     }
     if (this instanceof Num n) {
-      return Digits.shortest(n.value());
+      return n.text();
     }
     if (this instanceof Whole w) {
       return Long.toString(w.value());

@@ -66,7 +66,7 @@ public final class CsvOutput {
         Cell c = row.get(i);
         if (c instanceof Cell.Num n) {
           // digits, a point, a minus sign or an exponent: never a character that needs quoting
-          t.append(Digits.shortest(n.value()));
+          t.append(n.text());
         } else if (c instanceof Cell.Whole w) {
           t.append(w.value());
         } else if (c instanceof Cell.Text x) {

@@ -14,6 +14,8 @@ import java.time.Clock;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.FutureTask;
 import org.quantrun.core.method.Method;
 import org.quantrun.core.model.RunResult;
 import org.quantrun.runner.output.Digests;
@@ -63,34 +65,95 @@ public final class ResultsFolder {
     try (OutputFolder out = OutputFolder.create(parent, folderName(run))) {
       Path dir = out.staging();
       List<Audit.OutputFile> written = new ArrayList<>();
-      if (formats.contains(OutputFormat.CSV)) {
-        for (Table t : List.of(tables.results(), tables.resultsWide(), tables.calibration(), tables.calibrationLevels(),
-            tables.qc(), tables.reruns())) {
-          written.add(file(dir, t.name() + ".csv", o -> {
-            try (Writer w = textWriter(o)) {
-              CsvOutput.write(t, w);
-            }
-          }));
-        }
-      }
-      if (formats.contains(OutputFormat.JSON)) {
-        written.add(file(dir, "run.json", o -> {
-          try (OutputStream b = new BufferedOutputStream(o, 1 << 16)) {
-            RunJson.write(run, tables, b);
-          }
-        }));
-      }
+      FileBody html = null;
       if (formats.contains(OutputFormat.HTML)) {
         HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
             method.identity().description(), audit.inputs());
-        written.add(file(dir, "report.html", o -> {
+        html = o -> {
           try (Writer w = textWriter(o)) {
             HtmlReport.write(w, run, tables, method.reporting(), ctx);
           }
-        }));
+        };
+      }
+      boolean tablesToo = formats.contains(OutputFormat.CSV) || formats.contains(OutputFormat.JSON);
+      // the report (the slowest output) is written on a thread of its own while the tables are
+      // written here: everything it reads is immutable
+      FutureTask<Audit.OutputFile> report = null;
+      if (html != null && tablesToo) {
+        FileBody body = html;
+        report = new FutureTask<>(() -> file(dir, "report.html", body));
+        Thread t = new Thread(report, "quantrun-report");
+        t.setDaemon(true);
+        t.start();
+      }
+      try {
+        if (formats.contains(OutputFormat.CSV)) {
+          for (Table t : List.of(tables.results(), tables.resultsWide(), tables.calibration(), tables.calibrationLevels(),
+              tables.qc(), tables.reruns())) {
+            written.add(file(dir, t.name() + ".csv", o -> {
+              try (Writer w = textWriter(o)) {
+                CsvOutput.write(t, w);
+              }
+            }));
+          }
+        }
+        if (formats.contains(OutputFormat.JSON)) {
+          written.add(file(dir, "run.json", o -> {
+            try (OutputStream b = new BufferedOutputStream(o, 1 << 16)) {
+              RunJson.write(run, tables, b);
+            }
+          }));
+        }
+      } catch (IOException | RuntimeException | Error e) {
+        if (report != null) {
+          try {
+            finished(report);
+          } catch (IOException | RuntimeException | Error also) {
+            e.addSuppressed(also);
+          }
+        }
+        throw e;
+      }
+      if (report != null) {
+        written.add(finished(report));
+      } else if (html != null) {
+        written.add(file(dir, "report.html", html));
       }
       Files.write(dir.resolve(AUDIT), audit.json(clock.instant(), written));
       return out.publish();
+    }
+  }
+
+  /**
+   * Waits for a file written on another thread (even when this thread is interrupted, so that the
+   * staging folder is never removed under it) and gives its entry, or its failure.
+   */
+  private static Audit.OutputFile finished(FutureTask<Audit.OutputFile> task) throws IOException {
+    boolean interrupted = false;
+    try {
+      while (true) {
+        try {
+          return task.get();
+        } catch (InterruptedException e) {
+          interrupted = true;
+        } catch (ExecutionException e) {
+          Throwable cause = e.getCause();
+          if (cause instanceof IOException io) {
+            throw io;
+          }
+          if (cause instanceof RuntimeException r) {
+            throw r;
+          }
+          if (cause instanceof Error err) {
+            throw err;
+          }
+          throw new IllegalStateException(cause);
+        }
+      }
+    } finally {
+      if (interrupted) {
+        Thread.currentThread().interrupt();
+      }
     }
   }
 

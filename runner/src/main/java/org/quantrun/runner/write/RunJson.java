@@ -148,7 +148,11 @@ public final class RunJson {
 
     @Override
     public void writeObjectEntrySeparator(JsonGenerator g) throws IOException {
-      g.writeRaw(rootObject(g) ? ",\n" : ",");
+      if (rootObject(g)) {
+        g.writeRaw(",\n");
+      } else {
+        g.writeRaw(',');
+      }
     }
 
     @Override
@@ -160,7 +164,11 @@ public final class RunJson {
 
     @Override
     public void writeArrayValueSeparator(JsonGenerator g) throws IOException {
-      g.writeRaw(topLevelArray(g) ? ",\n" : ",");
+      if (topLevelArray(g)) {
+        g.writeRaw(",\n");
+      } else {
+        g.writeRaw(',');
+      }
     }
 
     @Override
@@ -208,7 +216,8 @@ public final class RunJson {
       if (c instanceof Cell.Text t) {
         g.writeString(t.text());
       } else if (c instanceof Cell.Num n) {
-        g.writeNumber(n.value());
+        // the same digits as the CSV file's, made once (a finite number's text is a JSON number)
+        g.writeNumber(n.text());
       } else if (c instanceof Cell.Whole w) {
         g.writeNumber(w.value());
       } else if (c instanceof Cell.Bool b) {

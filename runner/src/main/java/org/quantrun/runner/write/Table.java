@@ -72,18 +72,31 @@ public record Table(String name, List<String> columns, List<List<Cell>> rows) {
     return row;
   }
 
-  /** Rows made on reading, unmodifiable. */
+  /**
+   * Rows made on reading, unmodifiable. A table of up to {@link #KEPT_ROWS} rows keeps each row once
+   * made, so the writers that read it in turn (CSV, JSON, HTML) share its cells and the text of its
+   * numbers; a longer one makes each row afresh, so a large run is never held twice.
+   */
   private static final class ComputedRows extends AbstractList<List<Cell>> implements RandomAccess {
+    /** About 10 MB of cells for a results table. */
+    static final int KEPT_ROWS = 20_000;
     private final String name;
     private final int width;
     private final int size;
     private final IntFunction<List<Cell>> row;
+    /**
+     * The rows made so far, when kept. Two writer threads may make the same row at once: the rows
+     * are equal and immutable (final fields), so either may stay.
+     */
+    private final List<Cell>[] kept;
 
+    @SuppressWarnings("unchecked")
     ComputedRows(String name, int width, int size, IntFunction<List<Cell>> row) {
       this.name = name;
       this.width = width;
       this.size = size;
       this.row = row;
+      this.kept = size <= KEPT_ROWS ? (List<Cell>[]) new List<?>[size] : null;
     }
 
     @Override
@@ -91,7 +104,15 @@ public record Table(String name, List<String> columns, List<List<Cell>> rows) {
       if (index < 0 || index >= size) {
         throw new IndexOutOfBoundsException(index);
       }
-      return check(name, width, row.apply(index));
+      if (kept == null) {
+        return check(name, width, row.apply(index));
+      }
+      List<Cell> r = kept[index];
+      if (r == null) {
+        r = List.copyOf(check(name, width, row.apply(index)));
+        kept[index] = r;
+      }
+      return r;
     }
 
     @Override

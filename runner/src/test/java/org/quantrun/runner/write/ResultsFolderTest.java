@@ -264,6 +264,11 @@ class ResultsFolderTest {
     assertEquals("2027-01-12T11:00:00Z", a.get("finished").asText());
     assertEquals("analyst", a.get("user").asText());
     assertEquals(8, a.get("outputs").size());
+    // the report is written beside the tables on a thread of its own; the trail lists it last all the same
+    List<String> names = new java.util.ArrayList<>();
+    a.get("outputs").forEach(o -> names.add(o.get("name").asText()));
+    assertEquals(List.of("results.csv", "results-wide.csv", "calibration.csv", "calibration-levels.csv", "qc.csv",
+        "reruns.csv", "run.json", "report.html"), names);
     for (JsonNode o : a.get("outputs")) {
       byte[] content = Files.readAllBytes(folder.resolve(o.get("name").asText()));
       assertEquals(HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(content)), o.get("sha256").asText());
