@@ -70,6 +70,8 @@ public final class ImportSettings {
   private final Pattern replicateColumnPattern;
   private final List<Pattern> skipPatterns;
   private final Optional<Pattern> endPattern;
+  /** The literal start each skip and end rule requires of a row, or null when a rule requires none. */
+  private final List<String> ruleStarts;
   private final Set<String> invalidMarkers;
   private final boolean unreadableTextInvalid;
   private final int headerSearchLines;
@@ -98,6 +100,12 @@ public final class ImportSettings {
     replicateColumnPattern = b.replicateColumnPattern;
     skipPatterns = List.copyOf(b.skipPatterns);
     endPattern = b.endPattern;
+    List<String> starts = new ArrayList<>();
+    for (Pattern p : skipPatterns) {
+      starts.add(requiredStart(p));
+    }
+    endPattern.ifPresent(p -> starts.add(requiredStart(p)));
+    ruleStarts = starts.contains(null) ? null : List.copyOf(starts);
     Set<String> markers = new LinkedHashSet<>();
     b.invalidMarkers.forEach(m -> markers.add(m.strip().toLowerCase(Locale.ROOT)));
     invalidMarkers = Set.copyOf(markers);
@@ -336,6 +344,55 @@ public final class ImportSettings {
    */
   public boolean ends(String rowText) {
     return endPattern.isPresent() && endPattern.get().matcher(rowText).find();
+  }
+
+  /**
+   * Whether a skip or end rule could match a row that starts with {@code firstCell}: {@code false}
+   * only when every rule is anchored ({@code ^} and literal text, as in {@code ^End of data}) and
+   * the row cannot start with any of those texts, so an importer need not build the row's text.
+   *
+   * @param firstCell the row's first cell as read (the row's text starts with it)
+   * @return {@code false} when no rule can match the row
+   */
+  public boolean rulesMayMatch(String firstCell) {
+    if (skipPatterns.isEmpty() && endPattern.isEmpty()) {
+      return false;
+    }
+    if (ruleStarts == null) {
+      return true;
+    }
+    for (String start : ruleStarts) {
+      // a start longer than the first cell may run on into the next cells
+      if (firstCell.startsWith(start) || start.startsWith(firstCell)) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /**
+   * The literal text a pattern requires at the start of the input: after a leading {@code ^}, the
+   * letters, digits, spaces and {@code , ; : _ - / #} up to the first other character (less the
+   * last one when a quantifier follows it); null when there is none, or the pattern has flags or an
+   * alternative ({@code |}).
+   */
+  static String requiredStart(Pattern p) {
+    String r = p.pattern();
+    if (p.flags() != 0 || !r.startsWith("^") || r.indexOf('|') >= 0) {
+      return null;
+    }
+    int end = 1;
+    while (end < r.length() && isPlain(r.charAt(end))) {
+      end++;
+    }
+    if (end < r.length() && "?*{".indexOf(r.charAt(end)) >= 0) {
+      end--;
+    }
+    return end > 1 ? r.substring(1, end) : null;
+  }
+
+  private static boolean isPlain(char c) {
+    return Character.isLetterOrDigit(c) || " ,;:_-/#".indexOf(c) >= 0;
   }
 
   /** @return free options for third-party importers */

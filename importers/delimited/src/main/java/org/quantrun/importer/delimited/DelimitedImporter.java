@@ -127,7 +127,7 @@ public final class DelimitedImporter implements RunImporter {
           }
           continue;
         }
-        if (patterns) {
+        if (patterns && !cells.isEmpty() && settings.rulesMayMatch(cells.get(0))) {
           String raw = String.join(joiner, cells);
           if (settings.ends(raw)) {
             break;
