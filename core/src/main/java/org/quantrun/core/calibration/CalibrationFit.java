@@ -68,95 +68,42 @@ public final class CalibrationFit {
     Weighting weighting = options.weighting();
     this.p = curve.parameterCount();
     this.powers = curve.powers();
-    double[] x = new double[n];
-    double[] y = new double[n];
-    for (int i = 0; i < n; i++) {
-      x[i] = pts.get(i).x();
-      y[i] = pts.get(i).y();
-    }
+    double[] x = xValues(pts);
+    double[] y = yValues(pts);
     this.xMin = min(x);
     this.xMax = max(x);
     this.minPositiveX = minPositive(x);
     this.minPositiveY = minPositive(y);
 
     // weights, normalised to sum to n
-    double[] raw = new double[n];
-    double sumRaw = 0;
-    for (int i = 0; i < n; i++) {
-      raw[i] = weighting.rawWeight(weightArgument(weighting, pts.get(i)));
-      sumRaw += raw[i];
-    }
-    this.weightScale = n / sumRaw;
-    this.weights = new double[n];
-    for (int i = 0; i < n; i++) {
-      weights[i] = raw[i] * weightScale;
-    }
+    double[] raw = rawWeights(weighting, pts);
+    this.weightScale = n / sum(raw);
+    this.weights = scaled(raw, weightScale);
 
     // centre and scale x
-    if (curve.hasIntercept()) {
-      double mean = 0;
-      for (double v : x) {
-        mean += v;
-      }
-      this.xc = mean / n;
-    } else {
-      this.xc = 0;
-    }
-    double spread = 0;
-    for (double v : x) {
-      spread = Math.max(spread, Math.abs(v - xc));
-    }
-    this.xs = spread;
+    this.xc = curve.hasIntercept() ? sum(x) / n : 0;
+    this.xs = largestDistance(x, xc);
     this.uMin = (xMin - xc) / xs;
     this.uMax = (xMax - xc) / xs;
 
     // weighted least squares by QR on the scaled design matrix
-    double[][] a = new double[n][p];
-    double[] b = new double[n];
-    for (int i = 0; i < n; i++) {
-      double sw = Math.sqrt(weights[i]);
-      double u = (x[i] - xc) / xs;
-      for (int j = 0; j < p; j++) {
-        a[i][j] = sw * pow(u, powers[j]);
-      }
-      b[i] = sw * y[i];
-    }
-    QRDecomposition qr = new QRDecomposition(new Array2DRowRealMatrix(a, false), 1e-13);
+    QRDecomposition qr = new QRDecomposition(
+        new Array2DRowRealMatrix(designMatrix(x, weights, xc, xs, powers), false), 1e-13);
     DecompositionSolver solver = qr.getSolver();
     if (!solver.isNonSingular()) {
       throw new CalibrationException(
           "the calibration points do not determine a " + curve.token()
               + " curve (the concentrations are too few or too close together)");
     }
-    this.beta = solver.solve(new ArrayRealVector(b, false)).toArray();
-    double[][] rInv = upperTriangularInverse(qr.getR(), p);
-    this.unscaledCovU = new double[p][p];
-    for (int i = 0; i < p; i++) {
-      for (int j = 0; j < p; j++) {
-        double s = 0;
-        for (int k = Math.max(i, j); k < p; k++) {
-          s += rInv[i][k] * rInv[j][k];
-        }
-        unscaledCovU[i][j] = s;
-      }
-    }
+    this.beta = solver.solve(new ArrayRealVector(weightedSignals(y, weights), false)).toArray();
+    this.unscaledCovU = productWithTranspose(upperTriangularInverse(qr.getR(), p), p);
 
     // residuals and goodness of fit
-    double rss = 0;
-    double sumWy = 0;
-    for (int i = 0; i < n; i++) {
-      sumWy += weights[i] * y[i];
-    }
-    double yMeanW = sumWy / n;
-    double sst = 0;
-    double[] fitted = new double[n];
-    for (int i = 0; i < n; i++) {
-      fitted[i] = evalU((x[i] - xc) / xs);
-      double r = y[i] - fitted[i];
-      rss += weights[i] * r * r;
-      double d = curve.hasIntercept() ? y[i] - yMeanW : y[i];
-      sst += weights[i] * d * d;
-    }
+    double[] fitted = fittedValues(x);
+    double rss = weightedSquaredResiduals(y, fitted, weights);
+    double sst = curve.hasIntercept()
+        ? weightedSquaredDeviations(y, weightedSum(weights, y) / n, weights)
+        : weightedSquares(y, weights);
     if (!(sst > 0)) {
       throw new CalibrationException(
           "every calibration signal is " + y[0]
@@ -168,34 +115,8 @@ public final class CalibrationFit {
 
     // coefficients and covariance in x: c = T beta
     double[][] t = transform(xc, xs);
-    double[] beta3 = new double[MAX_TERMS];
-    double[][] cov3 = new double[MAX_TERMS][MAX_TERMS];
-    for (int i = 0; i < p; i++) {
-      beta3[powers[i]] = beta[i];
-      for (int j = 0; j < p; j++) {
-        cov3[powers[i]][powers[j]] = unscaledCovU[i][j];
-      }
-    }
-    this.coefficients = new double[MAX_TERMS];
-    this.unscaledCovX = new double[MAX_TERMS][MAX_TERMS];
-    for (int i = 0; i < MAX_TERMS; i++) {
-      double s = 0;
-      for (int k = 0; k < MAX_TERMS; k++) {
-        s += t[i][k] * beta3[k];
-      }
-      coefficients[i] = curve.hasTerm(i) ? s : 0.0;
-    }
-    for (int i = 0; i < MAX_TERMS; i++) {
-      for (int j = 0; j < MAX_TERMS; j++) {
-        double s = 0;
-        for (int k = 0; k < MAX_TERMS; k++) {
-          for (int l = 0; l < MAX_TERMS; l++) {
-            s += t[i][k] * cov3[k][l] * t[j][l];
-          }
-        }
-        unscaledCovX[i][j] = s;
-      }
-    }
+    this.coefficients = coefficientsInX(t, byPower(beta, powers), curve);
+    this.unscaledCovX = covarianceInX(t, byPower(unscaledCovU, powers));
 
     // shape: a quadratic must not turn inside the calibrated range
     if (curve == CurveModel.QUADRATIC && beta[2] != 0) {
@@ -217,16 +138,210 @@ public final class CalibrationFit {
       this.sdAtX = new double[0];
     }
 
-    List<BackCalculation> back = new ArrayList<>(n);
-    for (int i = 0; i < n; i++) {
-      OptionalDouble xb = solveU(y[i], (x[i] - xc) / xs, false).stream()
-          .map(u -> xc + xs * u).findFirst();
-      OptionalDouble pct = x[i] != 0 && xb.isPresent()
-          ? OptionalDouble.of((xb.getAsDouble() - x[i]) / x[i] * 100)
-          : OptionalDouble.empty();
-      back.add(new BackCalculation(x[i], y[i], weights[i], fitted[i], y[i] - fitted[i], xb, pct));
+    this.backCalculations = Collections.unmodifiableList(readBack(x, y, fitted));
+  }
+
+  // ---------------------------------------------------------------- steps of the fit
+  // Each loop of the fit is a method of its own: small methods are compiled quickly and alone.
+
+  private static double[] xValues(List<CalibrationPoint> pts) {
+    double[] x = new double[pts.size()];
+    for (int i = 0; i < x.length; i++) {
+      x[i] = pts.get(i).x();
     }
-    this.backCalculations = Collections.unmodifiableList(back);
+    return x;
+  }
+
+  private static double[] yValues(List<CalibrationPoint> pts) {
+    double[] y = new double[pts.size()];
+    for (int i = 0; i < y.length; i++) {
+      y[i] = pts.get(i).y();
+    }
+    return y;
+  }
+
+  private static double[] rawWeights(Weighting weighting, List<CalibrationPoint> pts) {
+    double[] raw = new double[pts.size()];
+    for (int i = 0; i < raw.length; i++) {
+      raw[i] = weighting.rawWeight(weightArgument(weighting, pts.get(i)));
+    }
+    return raw;
+  }
+
+  /** The sum in index order. */
+  private static double sum(double[] v) {
+    double s = 0;
+    for (double d : v) {
+      s += d;
+    }
+    return s;
+  }
+
+  private static double[] scaled(double[] v, double factor) {
+    double[] s = new double[v.length];
+    for (int i = 0; i < v.length; i++) {
+      s[i] = v[i] * factor;
+    }
+    return s;
+  }
+
+  /** The largest |v - centre|. */
+  private static double largestDistance(double[] v, double centre) {
+    double spread = 0;
+    for (double d : v) {
+      spread = Math.max(spread, Math.abs(d - centre));
+    }
+    return spread;
+  }
+
+  /** The rows sqrt(w_i) u_i^powers[j] of the weighted least-squares problem in u = (x - xc) / xs. */
+  private static double[][] designMatrix(double[] x, double[] weights, double xc, double xs, int[] powers) {
+    double[][] a = new double[x.length][powers.length];
+    for (int i = 0; i < x.length; i++) {
+      double sw = Math.sqrt(weights[i]);
+      double u = (x[i] - xc) / xs;
+      for (int j = 0; j < powers.length; j++) {
+        a[i][j] = sw * pow(u, powers[j]);
+      }
+    }
+    return a;
+  }
+
+  private static double[] weightedSignals(double[] y, double[] weights) {
+    double[] b = new double[y.length];
+    for (int i = 0; i < y.length; i++) {
+      b[i] = Math.sqrt(weights[i]) * y[i];
+    }
+    return b;
+  }
+
+  /** R^-1 R^-T for the upper triangular R^-1: the unscaled covariance (X'WX)^-1 in u. */
+  private static double[][] productWithTranspose(double[][] rInv, int p) {
+    double[][] c = new double[p][p];
+    for (int i = 0; i < p; i++) {
+      for (int j = 0; j < p; j++) {
+        double s = 0;
+        for (int k = Math.max(i, j); k < p; k++) {
+          s += rInv[i][k] * rInv[j][k];
+        }
+        c[i][j] = s;
+      }
+    }
+    return c;
+  }
+
+  private double[] fittedValues(double[] x) {
+    double[] fitted = new double[x.length];
+    for (int i = 0; i < x.length; i++) {
+      fitted[i] = evalU((x[i] - xc) / xs);
+    }
+    return fitted;
+  }
+
+  private static double weightedSum(double[] weights, double[] y) {
+    double s = 0;
+    for (int i = 0; i < y.length; i++) {
+      s += weights[i] * y[i];
+    }
+    return s;
+  }
+
+  /** sum w (y - fitted)^2. */
+  private static double weightedSquaredResiduals(double[] y, double[] fitted, double[] weights) {
+    double rss = 0;
+    for (int i = 0; i < y.length; i++) {
+      double r = y[i] - fitted[i];
+      rss += weights[i] * r * r;
+    }
+    return rss;
+  }
+
+  /** sum w (y - centre)^2. */
+  private static double weightedSquaredDeviations(double[] y, double centre, double[] weights) {
+    double sst = 0;
+    for (int i = 0; i < y.length; i++) {
+      double d = y[i] - centre;
+      sst += weights[i] * d * d;
+    }
+    return sst;
+  }
+
+  /** sum w y^2. */
+  private static double weightedSquares(double[] y, double[] weights) {
+    double sst = 0;
+    for (int i = 0; i < y.length; i++) {
+      double d = y[i];
+      sst += weights[i] * d * d;
+    }
+    return sst;
+  }
+
+  /** The model's coefficients placed at their powers 0..2 (zero where the model has no term). */
+  private static double[] byPower(double[] modelOrder, int[] powers) {
+    double[] v = new double[MAX_TERMS];
+    for (int i = 0; i < powers.length; i++) {
+      v[powers[i]] = modelOrder[i];
+    }
+    return v;
+  }
+
+  /** A matrix in the model's order placed at the powers 0..2 (zero where the model has no term). */
+  private static double[][] byPower(double[][] modelOrder, int[] powers) {
+    double[][] m = new double[MAX_TERMS][MAX_TERMS];
+    for (int i = 0; i < powers.length; i++) {
+      for (int j = 0; j < powers.length; j++) {
+        m[powers[i]][powers[j]] = modelOrder[i][j];
+      }
+    }
+    return m;
+  }
+
+  /** c = T beta, with 0 for the powers the curve does not have. */
+  private static double[] coefficientsInX(double[][] t, double[] beta3, CurveModel curve) {
+    double[] c = new double[MAX_TERMS];
+    for (int i = 0; i < MAX_TERMS; i++) {
+      double s = 0;
+      for (int k = 0; k < MAX_TERMS; k++) {
+        s += t[i][k] * beta3[k];
+      }
+      c[i] = curve.hasTerm(i) ? s : 0.0;
+    }
+    return c;
+  }
+
+  /** T Cov T'. */
+  private static double[][] covarianceInX(double[][] t, double[][] cov3) {
+    double[][] c = new double[MAX_TERMS][MAX_TERMS];
+    for (int i = 0; i < MAX_TERMS; i++) {
+      for (int j = 0; j < MAX_TERMS; j++) {
+        double s = 0;
+        for (int k = 0; k < MAX_TERMS; k++) {
+          for (int l = 0; l < MAX_TERMS; l++) {
+            s += t[i][k] * cov3[k][l] * t[j][l];
+          }
+        }
+        c[i][j] = s;
+      }
+    }
+    return c;
+  }
+
+  /** Every point read back through the curve. */
+  private List<BackCalculation> readBack(double[] x, double[] y, double[] fitted) {
+    List<BackCalculation> back = new ArrayList<>(x.length);
+    for (int i = 0; i < x.length; i++) {
+      back.add(readBack(x[i], y[i], weights[i], fitted[i]));
+    }
+    return back;
+  }
+
+  private BackCalculation readBack(double x, double y, double weight, double fitted) {
+    OptionalDouble xb = solveU(y, (x - xc) / xs, false).stream()
+        .map(u -> xc + xs * u).findFirst();
+    OptionalDouble pct = x != 0 && xb.isPresent()
+        ? OptionalDouble.of((xb.getAsDouble() - x) / x * 100)
+        : OptionalDouble.empty();
+    return new BackCalculation(x, y, weight, fitted, y - fitted, xb, pct);
   }
 
   /**

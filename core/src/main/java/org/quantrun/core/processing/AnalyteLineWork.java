@@ -106,11 +106,7 @@ final class AnalyteLineWork {
   // ------------------------------------------------------------------ corrections
 
   private void correct() {
-    corrected = new Signal[raw.length];
-    for (int j = 0; j < raw.length; j++) {
-      double ratio = isCorrection.ratio(j);
-      corrected[j] = raw[j] == null || Double.isNaN(ratio) ? null : raw[j].corrected(ratio, 0);
-    }
+    corrected = ratioCorrected(raw, isCorrection);
     if (isCorrection.active()) {
       trace.add("internal standard " + isCorrection.name() + ": signals x (IS in calibration blank / IS in the solution)");
     }
@@ -123,15 +119,30 @@ final class AnalyteLineWork {
       }
       double b = Signal.mean(blanks);
       blankSignal = OptionalDouble.of(b);
-      for (int j = 0; j < corrected.length; j++) {
-        if (corrected[j] != null) {
-          corrected[j] = corrected[j].corrected(1, b);
-        }
-      }
+      subtract(corrected, b);
       trace.add(String.format(Locale.ROOT, "calibration blank subtracted: mean of %d injection%s, %s",
           blanks.length, blanks.length == 1 ? "" : "s", Text.num(b)));
     } else if (handling == CalibrationBlankHandling.ZERO_POINT) {
       trace.add("calibration blank fitted as the zero point");
+    }
+  }
+
+  /** The signals times the internal-standard ratio of their injection (null where there is no ratio). */
+  private static Signal[] ratioCorrected(Signal[] raw, InternalStandardWork.Correction isCorrection) {
+    Signal[] corrected = new Signal[raw.length];
+    for (int j = 0; j < raw.length; j++) {
+      double ratio = isCorrection.ratio(j);
+      corrected[j] = raw[j] == null || Double.isNaN(ratio) ? null : raw[j].corrected(ratio, 0);
+    }
+    return corrected;
+  }
+
+  /** Subtracts the blank signal b from every signal, in place. */
+  private static void subtract(Signal[] signals, double b) {
+    for (int j = 0; j < signals.length; j++) {
+      if (signals[j] != null) {
+        signals[j] = signals[j].corrected(1, b);
+      }
     }
   }
 
@@ -151,6 +162,26 @@ final class AnalyteLineWork {
   private record FitSource(String level, int position, double x, Signal signal) {}
 
   private void calibrate() {
+    List<FitSource> sources = fitSources();
+    if (!rejections.isEmpty()) {
+      finishCalibration();
+      return;
+    }
+    if (sources.isEmpty()) {
+      rejections.add("no standard of the run holds " + analyte.name() + " with a valid reading");
+      notCalibrated = true;
+      finishCalibration();
+      return;
+    }
+    List<CalibrationPoint> points = new ArrayList<>();
+    List<FitSource> pointSource = new ArrayList<>();
+    addPoints(sources, analyte.fitPoints() == FitPoints.READINGS, points, pointSource);
+    fitAndAccept(points, pointSource);
+    finishCalibration();
+  }
+
+  /** The standards (and, fitted as the zero point, the calibration blanks) with a valid reading, in run order. */
+  private List<FitSource> fitSources() {
     List<FitSource> sources = new ArrayList<>();
     boolean zeroPoint = method.blanks().calibrationBlank() == CalibrationBlankHandling.ZERO_POINT;
     for (Classified c : injections) {
@@ -165,19 +196,15 @@ final class AnalyteLineWork {
         sources.add(new FitSource("blank", c.position(), 0, s));
       }
     }
-    if (!rejections.isEmpty()) {
-      finishCalibration();
-      return;
-    }
-    if (sources.isEmpty()) {
-      rejections.add("no standard of the run holds " + analyte.name() + " with a valid reading");
-      notCalibrated = true;
-      finishCalibration();
-      return;
-    }
-    boolean readings = analyte.fitPoints() == FitPoints.READINGS;
-    List<CalibrationPoint> points = new ArrayList<>();
-    List<FitSource> pointSource = new ArrayList<>();
+    return sources;
+  }
+
+  /**
+   * Adds the calibration points of the sources (each reading, or each injection's mean) to
+   * {@code points}, and the source of each point to {@code pointSource}.
+   */
+  private static void addPoints(List<FitSource> sources, boolean readings, List<CalibrationPoint> points,
+      List<FitSource> pointSource) {
     for (FitSource f : sources) {
       OptionalDouble sd = Double.isNaN(f.signal().sd()) ? OptionalDouble.empty() : OptionalDouble.of(f.signal().sd());
       if (readings) {
@@ -190,6 +217,9 @@ final class AnalyteLineWork {
         pointSource.add(f);
       }
     }
+  }
+
+  private void fitAndAccept(List<CalibrationPoint> points, List<FitSource> pointSource) {
     try {
       CalibrationFit f = CalibrationFit.fit(points, new FitOptions(analyte.curve(), analyte.weighting()));
       fit = Optional.of(f);
@@ -197,11 +227,22 @@ final class AnalyteLineWork {
     } catch (CalibrationException e) {
       rejections.add(e.getMessage());
     }
-    finishCalibration();
   }
 
   private void accept(CalibrationFit f, List<FitSource> sources) {
     CalibrationAcceptance rules = method.qc().calibration();
+    checkShape(f, rules);
+    double lowest = lowestPositive(sources);
+    double rl = analyte.reportingLimit().orElse(Double.NaN);
+    List<BackCalculation> back = f.backCalculations();
+    for (int i = 0; i < back.size(); i++) {
+      addLevel(back.get(i), sources.get(i), rules, lowest, rl);
+    }
+    calibrationLimits = calibrationLimits(f);
+  }
+
+  /** The correlation (r or r^2) against its minimum, and a quadratic's turning point. */
+  private void checkShape(CalibrationFit f, CalibrationAcceptance rules) {
     double r2 = f.r2();
     double r = Math.signum(f.slopeAt(f.xMin())) * Math.sqrt(Math.max(0, r2));
     if (rules.minR2().isPresent()) {
@@ -218,51 +259,53 @@ final class AnalyteLineWork {
       rejections.add("the quadratic turns at x = " + Text.num(f.vertex().getAsDouble())
           + " inside the calibrated range (not monotonic)");
     }
+  }
+
+  /** The lowest concentration above zero among the sources (infinity when there is none). */
+  private static double lowestPositive(List<FitSource> sources) {
     double lowest = Double.POSITIVE_INFINITY;
     for (FitSource s : sources) {
       if (s.x() > 0) {
         lowest = Math.min(lowest, s.x());
       }
     }
-    double rl = analyte.reportingLimit().orElse(Double.NaN);
-    List<BackCalculation> back = f.backCalculations();
-    for (int i = 0; i < back.size(); i++) {
-      BackCalculation b = back.get(i);
-      FitSource s = sources.get(i);
-      Verdict verdict;
-      Optional<String> reason = Optional.empty();
-      if (b.x() == 0) {
-        if (Double.isNaN(rl) || b.backCalculated().isEmpty()) {
-          verdict = Verdict.NOT_EVALUATED;
-          reason = Optional.of("a blank point is judged against the reporting limit, which the method does not give");
-        } else if (Math.abs(b.backCalculated().getAsDouble()) <= rl) {
-          verdict = Verdict.PASSED;
-        } else {
-          verdict = Verdict.FAILED;
-          reason = Optional.of("blank point reads back as " + Text.num(b.backCalculated().getAsDouble())
-              + ", beyond the reporting limit " + Text.num(rl));
-        }
+    return lowest;
+  }
+
+  /** Judges one fitted point by its back-calculated value and adds it to the levels. */
+  private void addLevel(BackCalculation b, FitSource s, CalibrationAcceptance rules, double lowest, double rl) {
+    Verdict verdict;
+    Optional<String> reason = Optional.empty();
+    if (b.x() == 0) {
+      if (Double.isNaN(rl) || b.backCalculated().isEmpty()) {
+        verdict = Verdict.NOT_EVALUATED;
+        reason = Optional.of("a blank point is judged against the reporting limit, which the method does not give");
+      } else if (Math.abs(b.backCalculated().getAsDouble()) <= rl) {
+        verdict = Verdict.PASSED;
       } else {
-        double limit = b.x() == lowest ? rules.maxBackCalcErrorLowest() : rules.maxBackCalcError();
-        if (b.percentError().isEmpty()) {
-          verdict = Verdict.FAILED;
-          reason = Optional.of("the curve does not reach this standard's signal");
-        } else if (Math.abs(b.percentError().getAsDouble()) <= limit + 1e-9) {
-          verdict = Verdict.PASSED;
-        } else {
-          verdict = Verdict.FAILED;
-          reason = Optional.of(String.format(Locale.ROOT, "reads back %+.2f %% off (limit %s %%%s)",
-              b.percentError().getAsDouble(), Text.num(limit), b.x() == lowest ? ", lowest standard" : ""));
-        }
+        verdict = Verdict.FAILED;
+        reason = Optional.of("blank point reads back as " + Text.num(b.backCalculated().getAsDouble())
+            + ", beyond the reporting limit " + Text.num(rl));
       }
-      if (verdict == Verdict.FAILED) {
-        rejections.add("standard " + s.level() + " (injection " + s.position() + "): " + reason.get());
+    } else {
+      double limit = b.x() == lowest ? rules.maxBackCalcErrorLowest() : rules.maxBackCalcError();
+      if (b.percentError().isEmpty()) {
+        verdict = Verdict.FAILED;
+        reason = Optional.of("the curve does not reach this standard's signal");
+      } else if (Math.abs(b.percentError().getAsDouble()) <= limit + 1e-9) {
+        verdict = Verdict.PASSED;
+      } else {
+        verdict = Verdict.FAILED;
+        reason = Optional.of(String.format(Locale.ROOT, "reads back %+.2f %% off (limit %s %%%s)",
+            b.percentError().getAsDouble(), Text.num(limit), b.x() == lowest ? ", lowest standard" : ""));
       }
-      OptionalDouble sd = s.signal().count() >= 2 ? OptionalDouble.of(s.signal().sd()) : OptionalDouble.empty();
-      levels.add(new CalibrationLevel(s.level(), s.position(), b.x(), b.y(), sd, b.weight(), b.fitted(),
-          b.residual(), b.backCalculated(), b.percentError(), verdict, reason));
     }
-    calibrationLimits = calibrationLimits(f);
+    if (verdict == Verdict.FAILED) {
+      rejections.add("standard " + s.level() + " (injection " + s.position() + "): " + reason.get());
+    }
+    OptionalDouble sd = s.signal().count() >= 2 ? OptionalDouble.of(s.signal().sd()) : OptionalDouble.empty();
+    levels.add(new CalibrationLevel(s.level(), s.position(), b.x(), b.y(), sd, b.weight(), b.fitted(),
+        b.residual(), b.backCalculated(), b.percentError(), verdict, reason));
   }
 
   private Optional<LimitEstimate> calibrationLimits(CalibrationFit f) {
@@ -303,14 +346,7 @@ final class AnalyteLineWork {
           break;
         }
         case RUN_BLANKS: {
-          List<Double> blanks = new ArrayList<>();
-          for (Classified c : injections) {
-            Signal s = corrected[c.index()];
-            boolean blank = c.role() == SampleRole.CALIBRATION_BLANK || c.role() == SampleRole.ICB || c.role() == SampleRole.CCB;
-            if (blank && s != null && s.hasValue()) {
-              blanks.add(s.mean());
-            }
-          }
+          List<Double> blanks = runBlankMeans();
           if (blanks.size() >= Math.max(2, p.minBlankReplicates()) && fit.isPresent()) {
             double sd = Signal.sd(blanks.stream().mapToDouble(Double::doubleValue).toArray());
             double slope = Math.abs(fit.get().slopeAt(0));
@@ -329,6 +365,19 @@ final class AnalyteLineWork {
       }
     }
     return Optional.empty();
+  }
+
+  /** The mean signals of the calibration blank, ICB and CCBs with a valid reading, in run order. */
+  private List<Double> runBlankMeans() {
+    List<Double> blanks = new ArrayList<>();
+    for (Classified c : injections) {
+      Signal s = corrected[c.index()];
+      boolean blank = c.role() == SampleRole.CALIBRATION_BLANK || c.role() == SampleRole.ICB || c.role() == SampleRole.CCB;
+      if (blank && s != null && s.hasValue()) {
+        blanks.add(s.mean());
+      }
+    }
+    return blanks;
   }
 
   /** Trace steps shared by every result (the numbers are in the result's own fields). */
@@ -357,85 +406,109 @@ final class AnalyteLineWork {
       }
       Signal s = raw[c.index()];
       PrepOf p = prep.of(c, analyte.unit());
-      Draft d = new Draft(c, analyte, key, reportedLine, s == null ? new Signal(new double[0], Double.NaN, Double.NaN, List.of()) : s,
-          p.unit());
+      Draft d = draft(c, key, s, p, limits);
       drafts[c.index()] = d;
-      d.toSample = p.toSample();
-      d.dilutionFactor = p.dilutionFactor();
-      d.trace.addAll(p.trace());
-      limits.ifPresent(l -> {
-        d.lod = l.lod();
-        d.loq = l.loq();
-        d.limitsFrom = Optional.of(l.source());
-      });
-      d.reportingLimit = analyte.reportingLimit().orElse(limits.map(LimitEstimate::loq).orElse(Double.NaN));
       if (!accepted) {
-        if (notCalibrated) {
-          d.notReportable("not calibrated: " + String.join("; ", rejections), ResultFlag.NOT_CALIBRATED);
-        } else {
-          d.notReportable("calibration rejected: " + String.join("; ", rejections), ResultFlag.CALIBRATION_FAILED);
-        }
-        continue;
+        markNotCalibrated(d);
+      } else if (readable(d, c, s, p)) {
+        readOff(d, c, blankStep, curveStep, top, tolerance);
       }
-      if (s == null) {
-        d.notReportable("the export has no reading of " + analyte.key() + " for this injection", ResultFlag.NO_VALID_READINGS);
-        continue;
-      }
-      d.trace.add(SIGNAL_STEPS[Math.min(s.count(), SIGNAL_STEPS.length - 1)]);
-      s.excluded().forEach(e -> d.trace.add("left out " + e));
-      if (!s.hasValue() && s.markedOverRange()) {
+    }
+  }
+
+  /** A new draft of the injection, with its preparation and the line's limits. */
+  private Draft draft(Classified c, String key, Signal s, PrepOf p, Optional<LimitEstimate> limits) {
+    Draft d = new Draft(c, analyte, key, reportedLine, s == null ? new Signal(new double[0], Double.NaN, Double.NaN, List.of()) : s,
+        p.unit());
+    d.toSample = p.toSample();
+    d.dilutionFactor = p.dilutionFactor();
+    d.trace.addAll(p.trace());
+    limits.ifPresent(l -> {
+      d.lod = l.lod();
+      d.loq = l.loq();
+      d.limitsFrom = Optional.of(l.source());
+    });
+    d.reportingLimit = analyte.reportingLimit().orElse(limits.map(LimitEstimate::loq).orElse(Double.NaN));
+    return d;
+  }
+
+  /** Marks a draft not reportable because the line's calibration was rejected or impossible. */
+  private void markNotCalibrated(Draft d) {
+    if (notCalibrated) {
+      d.notReportable("not calibrated: " + String.join("; ", rejections), ResultFlag.NOT_CALIBRATED);
+    } else {
+      d.notReportable("calibration rejected: " + String.join("; ", rejections), ResultFlag.CALIBRATION_FAILED);
+    }
+  }
+
+  /**
+   * Whether the injection's signal can be read off the curve; when not, marks the draft not
+   * reportable with the reason. Also flags an internal standard outside its window.
+   */
+  private boolean readable(Draft d, Classified c, Signal s, PrepOf p) {
+    if (s == null) {
+      d.notReportable("the export has no reading of " + analyte.key() + " for this injection", ResultFlag.NO_VALID_READINGS);
+      return false;
+    }
+    d.trace.add(SIGNAL_STEPS[Math.min(s.count(), SIGNAL_STEPS.length - 1)]);
+    s.excluded().forEach(e -> d.trace.add("left out " + e));
+    if (!s.hasValue() && s.markedOverRange()) {
+      d.flags.add(ResultFlag.OVER_RANGE);
+      d.position = RangePosition.ABOVE_RANGE;
+      d.notReportable("the instrument marked every reading over its range", ResultFlag.NO_VALID_READINGS);
+      return false;
+    }
+    if (!s.hasValue()) {
+      d.notReportable("no valid reading (" + String.join("; ", s.excluded()) + ")", ResultFlag.NO_VALID_READINGS);
+      return false;
+    }
+    Optional<String> isProblem = isCorrection.problem(c.index());
+    if (isProblem.isPresent()) {
+      d.notReportable(isProblem.get(), ResultFlag.INTERNAL_STANDARD_FAILED);
+      return false;
+    }
+    if (isCorrection.outOfWindow(c.index())) {
+      d.flags.add(ResultFlag.INTERNAL_STANDARD_FAILED);
+    }
+    if (p.problem().isPresent()) {
+      d.notReportable(p.problem().get(), ResultFlag.NOT_CALIBRATED);
+      return false;
+    }
+    return true;
+  }
+
+  /** Reads the corrected signal off the curve: x0, its interval, and the range flags. */
+  private void readOff(Draft d, Classified c, String blankStep, String curveStep, double top, double tolerance) {
+    CalibrationFit f = fit.get();
+    Signal y = corrected[c.index()];
+    if (isCorrection.active()) {
+      d.trace.add("internal standard " + isCorrection.name() + ": signal x " + Text.num(isCorrection.ratio(c.index())));
+    }
+    if (blankStep != null) {
+      d.trace.add(blankStep);
+    }
+    d.trace.add(curveStep);
+    int m = analyte.fitPoints() == FitPoints.READINGS ? y.count() : 1;
+    InversePrediction pr = f.predict(y.mean(), m, CONFIDENCE);
+    d.position = pr.position();
+    if (pr.status() == PredictionStatus.NO_ROOT_IN_RANGE) {
+      d.flags.add(ResultFlag.NO_ROOT_IN_RANGE);
+      if (pr.position() == RangePosition.ABOVE_RANGE) {
         d.flags.add(ResultFlag.OVER_RANGE);
-        d.position = RangePosition.ABOVE_RANGE;
-        d.notReportable("the instrument marked every reading over its range", ResultFlag.NO_VALID_READINGS);
-        continue;
+        pr.nearestRoot().ifPresent(x -> d.suggestedDilution = DilutionSuggestion.suggest(x, top, DilutionSuggestion.DEFAULT_TARGET_FRACTION));
       }
-      if (!s.hasValue()) {
-        d.notReportable("no valid reading (" + String.join("; ", s.excluded()) + ")", ResultFlag.NO_VALID_READINGS);
-        continue;
-      }
-      Optional<String> isProblem = isCorrection.problem(c.index());
-      if (isProblem.isPresent()) {
-        d.notReportable(isProblem.get(), ResultFlag.INTERNAL_STANDARD_FAILED);
-        continue;
-      }
-      if (isCorrection.outOfWindow(c.index())) {
-        d.flags.add(ResultFlag.INTERNAL_STANDARD_FAILED);
-      }
-      if (p.problem().isPresent()) {
-        d.notReportable(p.problem().get(), ResultFlag.NOT_CALIBRATED);
-        continue;
-      }
-      CalibrationFit f = fit.get();
-      Signal y = corrected[c.index()];
-      if (isCorrection.active()) {
-        d.trace.add("internal standard " + isCorrection.name() + ": signal x " + Text.num(isCorrection.ratio(c.index())));
-      }
-      if (blankStep != null) {
-        d.trace.add(blankStep);
-      }
-      d.trace.add(curveStep);
-      int m = analyte.fitPoints() == FitPoints.READINGS ? y.count() : 1;
-      InversePrediction pr = f.predict(y.mean(), m, CONFIDENCE);
-      d.position = pr.position();
-      if (pr.status() == PredictionStatus.NO_ROOT_IN_RANGE) {
-        d.flags.add(ResultFlag.NO_ROOT_IN_RANGE);
-        if (pr.position() == RangePosition.ABOVE_RANGE) {
-          d.flags.add(ResultFlag.OVER_RANGE);
-          pr.nearestRoot().ifPresent(x -> d.suggestedDilution = DilutionSuggestion.suggest(x, top, DilutionSuggestion.DEFAULT_TARGET_FRACTION));
-        }
-        d.notReportable("the curve does not reach signal " + Text.num(y.mean()) + " inside the calibrated range",
-            ResultFlag.NO_ROOT_IN_RANGE);
-        continue;
-      }
-      d.x0 = pr.x0().getAsDouble();
-      d.halfWidth = pr.halfWidth().orElse(Double.NaN);
-      d.trace.add(pr.halfWidth().isPresent() ? QUANTIFIED_WITH_INTERVAL : QUANTIFIED);
-      if (d.x0 > top * (1 + tolerance)) {
-        d.flags.add(ResultFlag.OVER_RANGE);
-        d.suggestedDilution = DilutionSuggestion.suggest(d.x0, top, DilutionSuggestion.DEFAULT_TARGET_FRACTION);
-      } else if (pr.position() == RangePosition.BELOW_RANGE && !(d.x0 < d.lod)) {
-        d.flags.add(ResultFlag.EXTRAPOLATED);
-      }
+      d.notReportable("the curve does not reach signal " + Text.num(y.mean()) + " inside the calibrated range",
+          ResultFlag.NO_ROOT_IN_RANGE);
+      return;
+    }
+    d.x0 = pr.x0().getAsDouble();
+    d.halfWidth = pr.halfWidth().orElse(Double.NaN);
+    d.trace.add(pr.halfWidth().isPresent() ? QUANTIFIED_WITH_INTERVAL : QUANTIFIED);
+    if (d.x0 > top * (1 + tolerance)) {
+      d.flags.add(ResultFlag.OVER_RANGE);
+      d.suggestedDilution = DilutionSuggestion.suggest(d.x0, top, DilutionSuggestion.DEFAULT_TARGET_FRACTION);
+    } else if (pr.position() == RangePosition.BELOW_RANGE && !(d.x0 < d.lod)) {
+      d.flags.add(ResultFlag.EXTRAPOLATED);
     }
   }
 }

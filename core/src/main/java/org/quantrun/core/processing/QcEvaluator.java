@@ -108,57 +108,67 @@ final class QcEvaluator {
         continue;
       }
       replicates(x);
-      switch (c.role()) {
-        case ICV: {
-          Check k = recovery(x, QcKind.ICV, plan.icv());
-          ccvChain.add(k);
-          if (k.verdict == Verdict.FAILED) {
-            forSamples(d, s -> true, s -> {
-              s.flags.add(ResultFlag.ICV_FAILED);
-              s.rerunReasons.add("the ICV at position " + c.position() + " failed for " + a.key() + " (" + k.reason + ")");
-            });
-          }
-          break;
-        }
-        case LOW_CHECK:
-          plan.lowCheck().ifPresent(cs -> recovery(x, QcKind.LOW_CHECK, cs));
-          break;
-        case CCV:
-          ccvChain.add(recovery(x, QcKind.CCV, plan.ccv().standard()));
-          break;
-        case ICB:
-          blankChain.add(blank(x, QcKind.ICB, plan.blanks().calibrationBlankFraction()));
-          break;
-        case CCB:
-          blankChain.add(blank(x, QcKind.CCB, plan.blanks().calibrationBlankFraction()));
-          break;
-        case LCS:
-          plan.lcs().ifPresent(cs -> batchEffect(d, c, recovery(x, QcKind.LCS, cs), ResultFlag.LCS_FAILED));
-          break;
-        case METHOD_BLANK:
-          batchEffect(d, c, blank(x, QcKind.METHOD_BLANK, plan.blanks().methodBlankFraction()), ResultFlag.METHOD_BLANK_FAILED);
-          break;
-        case DUPLICATE:
-          parent(d, c).ifPresent(p -> duplicate(p, x, QcKind.DUPLICATE, plan.duplicate(), ResultFlag.DUPLICATE_FAILED));
-          break;
-        case SPIKE:
-          parent(d, c).ifPresent(p -> plan.spike().ifPresent(rule -> spike(p, x, QcKind.SPIKE, rule)));
-          break;
-        case SPIKE_DUPLICATE:
-          parent(d, c).ifPresent(p -> plan.spike().ifPresent(rule -> {
-            spike(p, x, QcKind.SPIKE_DUPLICATE, rule);
-            spikeOf(d, c).ifPresent(ms -> duplicate(ms, x, QcKind.SPIKE_DUPLICATE, rule.duplicate(), ResultFlag.SPIKE_FAILED));
-          }));
-          break;
-        case SERIAL_DILUTION:
-          parent(d, c).ifPresent(p -> serialDilution(p, x, plan.serialDilution()));
-          break;
-        default:
-          break;
-      }
+      check(d, a, c, x, ccvChain, blankChain);
     }
     bracket(d, a, ccvChain, true);
     bracket(d, a, blankChain, false);
+  }
+
+  /** The check its role asks of one injection; ICV, CCV and blank checks join their chain. */
+  private void check(Draft[] d, Analyte a, Classified c, Draft x, List<Check> ccvChain, List<Check> blankChain) {
+    switch (c.role()) {
+      case ICV: {
+        Check k = recovery(x, QcKind.ICV, plan.icv());
+        ccvChain.add(k);
+        if (k.verdict == Verdict.FAILED) {
+          icvFailed(d, a, c, k);
+        }
+        break;
+      }
+      case LOW_CHECK:
+        plan.lowCheck().ifPresent(cs -> recovery(x, QcKind.LOW_CHECK, cs));
+        break;
+      case CCV:
+        ccvChain.add(recovery(x, QcKind.CCV, plan.ccv().standard()));
+        break;
+      case ICB:
+        blankChain.add(blank(x, QcKind.ICB, plan.blanks().calibrationBlankFraction()));
+        break;
+      case CCB:
+        blankChain.add(blank(x, QcKind.CCB, plan.blanks().calibrationBlankFraction()));
+        break;
+      case LCS:
+        plan.lcs().ifPresent(cs -> batchEffect(d, c, recovery(x, QcKind.LCS, cs), ResultFlag.LCS_FAILED));
+        break;
+      case METHOD_BLANK:
+        batchEffect(d, c, blank(x, QcKind.METHOD_BLANK, plan.blanks().methodBlankFraction()), ResultFlag.METHOD_BLANK_FAILED);
+        break;
+      case DUPLICATE:
+        parent(d, c).ifPresent(p -> duplicate(p, x, QcKind.DUPLICATE, plan.duplicate(), ResultFlag.DUPLICATE_FAILED));
+        break;
+      case SPIKE:
+        parent(d, c).ifPresent(p -> plan.spike().ifPresent(rule -> spike(p, x, QcKind.SPIKE, rule)));
+        break;
+      case SPIKE_DUPLICATE:
+        parent(d, c).ifPresent(p -> plan.spike().ifPresent(rule -> {
+          spike(p, x, QcKind.SPIKE_DUPLICATE, rule);
+          spikeOf(d, c).ifPresent(ms -> duplicate(ms, x, QcKind.SPIKE_DUPLICATE, rule.duplicate(), ResultFlag.SPIKE_FAILED));
+        }));
+        break;
+      case SERIAL_DILUTION:
+        parent(d, c).ifPresent(p -> serialDilution(p, x, plan.serialDilution()));
+        break;
+      default:
+        break;
+    }
+  }
+
+  /** A failed ICV leaves the calibration unverified for every sample of the line. */
+  private void icvFailed(Draft[] d, Analyte a, Classified icv, Check k) {
+    forSamples(d, s -> true, s -> {
+      s.flags.add(ResultFlag.ICV_FAILED);
+      s.rerunReasons.add("the ICV at position " + icv.position() + " failed for " + a.key() + " (" + k.reason + ")");
+    });
   }
 
   /** Runs the run-level CCV frequency check once. */
@@ -363,21 +373,25 @@ final class QcEvaluator {
       Check before = next > 0 ? chain.get(next - 1) : null;
       Check after = next < chain.size() ? chain.get(next) : null;
       for (Check k : new Check[] {before, after}) {
-        if (k == null || k.verdict != Verdict.FAILED) {
-          continue;
-        }
-        if (standAfterHighBias && k.highBias && s.belowLod()) {
-          s.trace.add("non-detect stands after the high-biased CCV at position " + k.position);
-          continue;
-        }
-        boolean initial = injections.get(k.index).role() == SampleRole.ICV || injections.get(k.index).role() == SampleRole.ICB;
-        ResultFlag flag = ccv ? (initial ? ResultFlag.ICV_FAILED : ResultFlag.CCV_FAILED)
-            : (initial ? ResultFlag.ICB_FAILED : ResultFlag.CCB_FAILED);
-        if (s.flags.add(flag) || !initial) {
-          s.rerunReasons.add("the bracketing " + (ccv ? (initial ? "ICV " : "CCV ") : (initial ? "ICB " : "CCB "))
-              + k.sampleId + " (position " + k.position + ") failed for " + a.key() + ": " + k.reason);
+        if (k != null && k.verdict == Verdict.FAILED) {
+          bracketFailed(s, a, k, ccv, standAfterHighBias);
         }
       }
+    }
+  }
+
+  /** The effect on one sample of a failed check bracketing it. */
+  private void bracketFailed(Draft s, Analyte a, Check k, boolean ccv, boolean standAfterHighBias) {
+    if (standAfterHighBias && k.highBias && s.belowLod()) {
+      s.trace.add("non-detect stands after the high-biased CCV at position " + k.position);
+      return;
+    }
+    boolean initial = injections.get(k.index).role() == SampleRole.ICV || injections.get(k.index).role() == SampleRole.ICB;
+    ResultFlag flag = ccv ? (initial ? ResultFlag.ICV_FAILED : ResultFlag.CCV_FAILED)
+        : (initial ? ResultFlag.ICB_FAILED : ResultFlag.CCB_FAILED);
+    if (s.flags.add(flag) || !initial) {
+      s.rerunReasons.add("the bracketing " + (ccv ? (initial ? "ICV " : "CCV ") : (initial ? "ICB " : "CCB "))
+          + k.sampleId + " (position " + k.position + ") failed for " + a.key() + ": " + k.reason);
     }
   }
 

@@ -68,7 +68,57 @@ public final class RunProcessor {
         + "' was not applied: the importers do not pass per-injection columns; every sample got the default factor "
         + Text.num(method.dilution().defaultFactor()) + " (use a prep sheet for per-sample factors)"));
     SignalTable table = new SignalTable(run, injections);
+    Map<String, InternalStandardWork> isWorks = internalStandards(method, injections, table, findings);
 
+    SamplePrep samplePrep = new SamplePrep(method, prep, injections);
+    QcEvaluator qc = new QcEvaluator(method, injections, samplePrep);
+    List<Classified> unbracketed = QcEvaluator.unbracketed(injections);
+    Set<Integer> unbracketedSet = indexes(unbracketed);
+
+    // One analyte line at a time, start to finish: its QC reads only its own drafts, so each
+    // line's drafts and signals are dropped as soon as its results are frozen.
+    List<Analyte> analytes = method.analytes();
+    List<CalibrationResult> calibrations = new ArrayList<>(analytes.size());
+    AnalyteResult[][] resultsByLine = new AnalyteResult[analytes.size()][];
+    RerunRequest[][] rerunsByLine = new RerunRequest[analytes.size()][];
+    Shared shared = new Shared();
+    for (int k = 0; k < analytes.size(); k++) {
+      AnalyteLineWork work = analyteLine(analytes.get(k), method, injections, table, isWorks, samplePrep, findings);
+      qc.evaluate(work);
+      resultsByLine[k] = new AnalyteResult[injections.size()];
+      rerunsByLine[k] = new RerunRequest[injections.size()];
+      freeze(work.drafts(), injections, method, unbracketedSet, shared, resultsByLine[k], rerunsByLine[k]);
+      calibrations.add(work.calibration());
+    }
+    qc.ccvFrequency();
+
+    List<AnalyteResult> results = inRunOrder(injections, resultsByLine);
+    List<RerunRequest> reruns = inRunOrder(injections, rerunsByLine);
+    if (!unbracketed.isEmpty()) {
+      findings.add("the last " + unbracketed.size() + " real sample" + (unbracketed.size() == 1 ? " is" : "s are")
+          + " not followed by a CCV");
+    }
+    findings.addAll(qc.findings());
+    List<QcCheck> checks = checks(isWorks, qc);
+
+    calibrations = List.copyOf(calibrations);
+    boolean anyAccepted = calibrations.stream().anyMatch(c -> c.reportedLine() && c.status() == CalibrationStatus.ACCEPTED);
+    if (!anyAccepted) {
+      findings.add("no reported analyte line has an accepted calibration");
+    }
+    RunVerdict verdict = verdict(qc.runFailed(), anyAccepted, reruns, checks, calibrations);
+    List<InjectionRecord> records = records(injections, samplePrep, method);
+    RunInfo info = new RunInfo(runId(run), run.sourceName(), run.importerId(), method.identity().id(),
+        method.identity().version(), metadata(run));
+    return new RunResult(info, records, calibrations, results, checks, reruns, verdict, findings);
+  }
+
+  // The steps of process, each a method of its own: small methods are compiled quickly and alone,
+  // and no loop of a long method is compiled on its own again and again.
+
+  /** The work of every internal standard of the method, by name. */
+  private static Map<String, InternalStandardWork> internalStandards(Method method, List<Classified> injections,
+      SignalTable table, List<String> findings) {
     Map<String, InternalStandardWork> isWorks = new LinkedHashMap<>();
     for (InternalStandard is : method.internalStandards()) {
       Optional<String> lineOrMass = is.line().or(() -> is.mass().map(String::valueOf));
@@ -80,87 +130,77 @@ public final class RunProcessor {
       }
       isWorks.put(is.name(), new InternalStandardWork(is, injections, s, method.qc().internalStandardRecovery()).run());
     }
+    return isWorks;
+  }
 
-    SamplePrep samplePrep = new SamplePrep(method, prep, injections);
-    QcEvaluator qc = new QcEvaluator(method, injections, samplePrep);
-    List<Classified> unbracketed = QcEvaluator.unbracketed(injections);
-    Set<Integer> unbracketedSet = new java.util.HashSet<>();
-    unbracketed.forEach(c -> unbracketedSet.add(c.index()));
+  private static Set<Integer> indexes(List<Classified> injections) {
+    Set<Integer> set = new java.util.HashSet<>();
+    injections.forEach(c -> set.add(c.index()));
+    return set;
+  }
 
-    // One analyte line at a time, start to finish: its QC reads only its own drafts, so each
-    // line's drafts and signals are dropped as soon as its results are frozen.
-    List<Analyte> analytes = method.analytes();
-    List<CalibrationResult> calibrations = new ArrayList<>(analytes.size());
-    AnalyteResult[][] resultsByLine = new AnalyteResult[analytes.size()][];
-    RerunRequest[][] rerunsByLine = new RerunRequest[analytes.size()][];
-    Shared shared = new Shared();
-    for (int k = 0; k < analytes.size(); k++) {
-      Analyte a = analytes.get(k);
-      Optional<String> lineOrMass = a.line().or(() -> a.mass().map(String::valueOf));
-      Signal[] s = table.signals(a.name(), lineOrMass);
-      if (s == null) {
-        findings.add("the export has no line " + a.key() + " (it has: " + table.exportedLabels() + ")");
-        s = new Signal[injections.size()];
-      }
-      InternalStandardWork.Correction corr = a.internalStandard().map(n -> isWorks.get(n).correction())
-          .orElse(InternalStandardWork.none());
-      AnalyteLineWork work = new AnalyteLineWork(method, a, injections, s, corr, samplePrep).run();
-      qc.evaluate(work);
-      Draft[] d = work.drafts();
-      carryOver(d, injections);
-      AnalyteResult[] res = new AnalyteResult[injections.size()];
-      RerunRequest[] rr = new RerunRequest[injections.size()];
-      for (Classified c : injections) {
-        Draft x = d[c.index()];
-        if (x == null) {
-          continue;
-        }
-        res[c.index()] = ResultWriter.freeze(x, method.reporting(), shared);
-        if (c.isRealSample() && x.reportedLine) {
-          rr[c.index()] = rerunOf(x, unbracketedSet.contains(c.index()), shared).orElse(null);
-        }
-      }
-      resultsByLine[k] = res;
-      rerunsByLine[k] = rr;
-      calibrations.add(work.calibration());
+  /** One analyte line through the run: corrections, calibration, limits and quantitation. */
+  private static AnalyteLineWork analyteLine(Analyte a, Method method, List<Classified> injections, SignalTable table,
+      Map<String, InternalStandardWork> isWorks, SamplePrep samplePrep, List<String> findings) {
+    Optional<String> lineOrMass = a.line().or(() -> a.mass().map(String::valueOf));
+    Signal[] s = table.signals(a.name(), lineOrMass);
+    if (s == null) {
+      findings.add("the export has no line " + a.key() + " (it has: " + table.exportedLabels() + ")");
+      s = new Signal[injections.size()];
     }
-    qc.ccvFrequency();
+    InternalStandardWork.Correction corr = a.internalStandard().map(n -> isWorks.get(n).correction())
+        .orElse(InternalStandardWork.none());
+    return new AnalyteLineWork(method, a, injections, s, corr, samplePrep).run();
+  }
 
-    List<AnalyteResult> results = new ArrayList<>();
-    List<RerunRequest> reruns = new ArrayList<>();
+  /** Flags one line's drafts for carry-over, then freezes them into results and rerun requests. */
+  private static void freeze(Draft[] d, List<Classified> injections, Method method, Set<Integer> unbracketed,
+      Shared shared, AnalyteResult[] res, RerunRequest[] rr) {
+    carryOver(d, injections);
     for (Classified c : injections) {
-      for (int k = 0; k < analytes.size(); k++) {
-        AnalyteResult r = resultsByLine[k][c.index()];
-        if (r != null) {
-          results.add(r);
-        }
-        RerunRequest q = rerunsByLine[k][c.index()];
-        if (q != null) {
-          reruns.add(q);
+      Draft x = d[c.index()];
+      if (x == null) {
+        continue;
+      }
+      res[c.index()] = ResultWriter.freeze(x, method.reporting(), shared);
+      if (c.isRealSample() && x.reportedLine) {
+        rr[c.index()] = rerunOf(x, unbracketed.contains(c.index()), shared).orElse(null);
+      }
+    }
+  }
+
+  /** The non-null entries, injection by injection and, within one, analyte line by analyte line. */
+  private static <T> List<T> inRunOrder(List<Classified> injections, T[][] byLine) {
+    List<T> all = new ArrayList<>();
+    for (Classified c : injections) {
+      for (T[] line : byLine) {
+        T t = line[c.index()];
+        if (t != null) {
+          all.add(t);
         }
       }
     }
-    if (!unbracketed.isEmpty()) {
-      findings.add("the last " + unbracketed.size() + " real sample" + (unbracketed.size() == 1 ? " is" : "s are")
-          + " not followed by a CCV");
-    }
-    findings.addAll(qc.findings());
+    return all;
+  }
 
+  /** Every QC check of the run, internal standards first, ordered by position. */
+  private static List<QcCheck> checks(Map<String, InternalStandardWork> isWorks, QcEvaluator qc) {
     List<QcCheck> checks = new ArrayList<>();
     isWorks.values().forEach(w -> checks.addAll(w.checks()));
     checks.addAll(qc.checks());
     checks.sort(java.util.Comparator.comparingInt(QcCheck::position));
+    return checks;
+  }
 
-    calibrations = List.copyOf(calibrations);
-    boolean anyAccepted = calibrations.stream().anyMatch(c -> c.reportedLine() && c.status() == CalibrationStatus.ACCEPTED);
-    if (!anyAccepted) {
-      findings.add("no reported analyte line has an accepted calibration");
-    }
+  private static RunVerdict verdict(boolean runFailed, boolean anyAccepted, List<RerunRequest> reruns,
+      List<QcCheck> checks, List<CalibrationResult> calibrations) {
     boolean qcFailed = checks.stream().anyMatch(c -> c.verdict() == Verdict.FAILED);
-    RunVerdict verdict = qc.runFailed() || !anyAccepted ? RunVerdict.OUT_OF_CONTROL
+    return runFailed || !anyAccepted ? RunVerdict.OUT_OF_CONTROL
         : !reruns.isEmpty() || qcFailed || calibrations.stream().anyMatch(c -> c.status() == CalibrationStatus.REJECTED)
             ? RunVerdict.RERUNS_NEEDED : RunVerdict.IN_CONTROL;
+  }
 
+  private static List<InjectionRecord> records(List<Classified> injections, SamplePrep samplePrep, Method method) {
     List<InjectionRecord> records = new ArrayList<>();
     for (Classified c : injections) {
       String batch = samplePrep.batch(c);
@@ -168,13 +208,16 @@ public final class RunProcessor {
       records.add(new InjectionRecord(c.position(), c.sampleId(), c.role(), c.level(), c.parent(),
           batch.isEmpty() ? Optional.empty() : Optional.of(batch), df, c.injection().timestamp(), c.identifiedBy()));
     }
+    return records;
+  }
+
+  /** The run's metadata, the first value of each key. */
+  private static Map<String, String> metadata(RawRun run) {
     Map<String, String> metadata = new LinkedHashMap<>();
     for (MetadataEntry m : run.metadata()) {
       metadata.putIfAbsent(m.key(), m.value());
     }
-    RunInfo info = new RunInfo(runId(run), run.sourceName(), run.importerId(), method.identity().id(),
-        method.identity().version(), metadata);
-    return new RunResult(info, records, calibrations, results, checks, reruns, verdict, findings);
+    return metadata;
   }
 
   /** Sets the limit flags of one line's drafts and marks a possible carry-over after an over-range injection. */
