@@ -1,12 +1,11 @@
 package org.quantrun.runner.write;
 
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
-import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.Set;
 import org.quantrun.core.Token;
 import org.quantrun.core.calibration.CalibrationFit;
 import org.quantrun.core.method.ReportingRules;
@@ -111,50 +110,76 @@ public record ResultTables(
   }
 
   private static Table wide(RunResult run) {
-    // the reported line of each analyte, in method order (then any line met only in the results)
-    Map<String, String> unitOf = new LinkedHashMap<>();
-    Set<String> keys = new LinkedHashSet<>();
+    // the reported line of each analyte, in method order (then any line met only in the results);
+    // a column's unit and analyte are those of the last result of its line
+    Map<String, Integer> column = new HashMap<>();
+    List<String> keyOrder = new ArrayList<>();
+    List<String> unitOf = new ArrayList<>();
     for (CalibrationResult c : run.calibrations()) {
       if (c.reportedLine()) {
-        keys.add(c.analyteKey());
-        unitOf.put(c.analyteKey(), c.unit());
+        int k = column.computeIfAbsent(c.analyteKey(), key -> add(keyOrder, unitOf, key));
+        unitOf.set(k, c.unit());
       }
     }
-    Map<String, String> analyteOf = new LinkedHashMap<>();
+    Map<String, String> analyteOf = new HashMap<>();
     for (AnalyteResult r : run.results()) {
       if (r.reportedLine()) {
-        keys.add(r.analyteKey());
-        unitOf.put(r.analyteKey(), r.unit());
+        int k = column.computeIfAbsent(r.analyteKey(), key -> add(keyOrder, unitOf, key));
+        unitOf.set(k, r.unit());
         analyteOf.put(r.analyteKey(), r.analyte());
       }
     }
     run.calibrations().forEach(c -> analyteOf.putIfAbsent(c.analyteKey(), c.analyte()));
-    List<String> columns = new ArrayList<>(WIDE_KEY_COLUMNS);
-    List<String> keyOrder = new ArrayList<>(keys);
+    Map<String, Integer> analyteCount = new HashMap<>();
     for (String k : keyOrder) {
-      String analyte = analyteOf.getOrDefault(k, k);
-      long same = keyOrder.stream().filter(o -> analyteOf.getOrDefault(o, o).equals(analyte)).count();
-      columns.add((same == 1 ? analyte : k) + " [" + unitOf.getOrDefault(k, "") + "]");
+      analyteCount.merge(analyteOf.getOrDefault(k, k), 1, Integer::sum);
     }
-    Map<Integer, Map<String, String>> byInjection = new LinkedHashMap<>();
-    Map<Integer, AnalyteResult> first = new LinkedHashMap<>();
+    List<String> columns = new ArrayList<>(WIDE_KEY_COLUMNS);
+    for (int k = 0; k < keyOrder.size(); k++) {
+      String key = keyOrder.get(k);
+      String analyte = analyteOf.getOrDefault(key, key);
+      String unit = unitOf.get(k);
+      columns.add((analyteCount.get(analyte) == 1 ? analyte : key) + " [" + unit + "]");
+    }
+    // one row per injection, in the order injections first appear; a later result of the same
+    // injection and line replaces an earlier one
+    Map<Integer, WideRow> rows = new LinkedHashMap<>();
+    WideRow last = null;
     for (AnalyteResult r : run.results()) {
-      first.putIfAbsent(r.position(), r);
+      if (last == null || last.first.position() != r.position()) {
+        last = rows.get(r.position());
+        if (last == null) {
+          last = new WideRow(r, new String[keyOrder.size()]);
+          rows.put(r.position(), last);
+        }
+      }
       if (r.reportedLine()) {
-        byInjection.computeIfAbsent(r.position(), p -> new LinkedHashMap<>()).put(r.analyteKey(), r.reported());
+        last.values[column.get(r.analyteKey())] = r.reported();
       }
     }
-    List<List<Cell>> rows = new ArrayList<>();
-    for (AnalyteResult r : first.values()) {
-      List<Cell> row = new ArrayList<>(List.of(Cell.of(run.run().runId()), Cell.of(r.position()), Cell.of(r.sampleId()),
-          token(r.role())));
-      Map<String, String> values = byInjection.getOrDefault(r.position(), Map.of());
-      for (String k : keyOrder) {
-        row.add(values.containsKey(k) ? Cell.of(values.get(k)) : Cell.BLANK);
+    String runId = run.run().runId();
+    List<List<Cell>> cells = new ArrayList<>(rows.size());
+    for (WideRow w : rows.values()) {
+      List<Cell> row = new ArrayList<>(WIDE_KEY_COLUMNS.size() + w.values.length);
+      row.add(Cell.of(runId));
+      row.add(Cell.of(w.first.position()));
+      row.add(Cell.of(w.first.sampleId()));
+      row.add(token(w.first.role()));
+      for (String v : w.values) {
+        row.add(v == null ? Cell.BLANK : Cell.of(v));
       }
-      rows.add(row);
+      cells.add(row);
     }
-    return new Table("results-wide", columns, rows);
+    return new Table("results-wide", columns, cells);
+  }
+
+  /** An injection's row of the wide table: its first result, and the reported value per column. */
+  private record WideRow(AnalyteResult first, String[] values) {}
+
+  private static int add(List<String> keyOrder, List<String> unitOf, String key) {
+    keyOrder.add(key);
+    unitOf.add(null);
+    return keyOrder.size() - 1;
   }
 
   private static Table calibration(RunResult run) {
