@@ -10,6 +10,8 @@ import com.fasterxml.jackson.core.io.SerializedString;
 import com.fasterxml.jackson.core.util.MinimalPrettyPrinter;
 import java.io.IOException;
 import java.io.OutputStream;
+import java.io.StringWriter;
+import java.util.IdentityHashMap;
 import java.util.List;
 import org.quantrun.core.Token;
 import org.quantrun.core.model.AnalyteResult;
@@ -100,23 +102,16 @@ public final class RunJson {
 
     Table results = tables.results();
     SerializableString[] resultKeys = keys(results);
+    SharedArrays arrays = new SharedArrays();
     g.writeArrayFieldStart("results");
     for (int i = 0; i < run.results().size(); i++) {
       AnalyteResult r = run.results().get(i);
       g.writeStartObject();
       fields(g, resultKeys, results.rows().get(i));
       g.writeFieldName(FLAG_NAMES);
-      g.writeStartArray();
-      for (Token f : r.flags()) {
-        g.writeString(f.token());
-      }
-      g.writeEndArray();
+      arrays.write(g, r.flags());
       g.writeFieldName(TRACE);
-      g.writeStartArray();
-      for (String t : r.trace()) {
-        g.writeString(t);
-      }
-      g.writeEndArray();
+      arrays.write(g, r.trace());
       g.writeEndObject();
     }
     g.writeEndArray();
@@ -234,6 +229,42 @@ public final class RunJson {
       g.writeString(v);
     }
     g.writeEndArray();
+  }
+
+  /**
+   * The flag and trace arrays of the results, each rendered once: a run's results share a few
+   * instances of equal flag lists and traces, so each instance's JSON text is made on first use
+   * and then copied as bytes (the same bytes the generator would write). Bounded: past {@link
+   * #LIMIT} distinct instances, an array is written the ordinary way.
+   */
+  private static final class SharedArrays {
+    private static final int LIMIT = 4096;
+    private final IdentityHashMap<List<?>, SerializedString> rendered = new IdentityHashMap<>();
+
+    void write(JsonGenerator g, List<?> values) throws IOException {
+      SerializedString r = rendered.get(values);
+      if (r == null) {
+        if (rendered.size() >= LIMIT) {
+          writeArray(g, values);
+          return;
+        }
+        StringWriter text = new StringWriter();
+        try (JsonGenerator one = FACTORY.createGenerator(text)) {
+          writeArray(one, values);
+        }
+        r = new SerializedString(text.toString());
+        rendered.put(values, r);
+      }
+      g.writeRawValue(r);
+    }
+
+    private static void writeArray(JsonGenerator g, List<?> values) throws IOException {
+      g.writeStartArray();
+      for (Object v : values) {
+        g.writeString(v instanceof Token t ? t.token() : (String) v);
+      }
+      g.writeEndArray();
+    }
   }
 
   /**
