@@ -204,8 +204,16 @@ class EndToEndIT {
 
   // ---------------------------------------------------------------- the config examples
 
-  /** One solution of a synthetic run: its sample id, exported type, and what it holds. */
-  record Solution(String id, String type, Map<String, Double> conc) {}
+  /**
+   * One solution of a synthetic run: its sample id, exported type, what it holds, and its cells of
+   * the columns the method reads per injection (a dilution factor, a standard's level; blank when
+   * not given).
+   */
+  record Solution(String id, String type, Map<String, Double> conc, Map<String, String> cells) {
+    Solution(String id, String type, Map<String, Double> conc) {
+      this(id, type, conc, Map.of());
+    }
+  }
 
   static Map<String, Double> scaled(Map<String, Double> m, double f) {
     Map<String, Double> out = new HashMap<>();
@@ -222,13 +230,18 @@ class EndToEndIT {
   /**
    * A synthetic long-layout export for a method: every solution is measured on every analyte line
    * (and internal standard) with 3 readings; signal = 120 + k x concentration, k different per line,
-   * 0.4 % reading noise from a fixed seed. Internal standards read 50,000 in every solution.
+   * 0.4 % reading noise from a fixed seed. Internal standards read 50,000 in every solution. The
+   * columns the method reads per injection come last, on every row of the injection.
    */
   static String export(Method m, List<Solution> sequence) {
-    StringBuilder b = new StringBuilder("Seq,Sample ID,Type,Element,Line,Rep,Intensity,Unit\n");
+    StringBuilder b = new StringBuilder("Seq,Sample ID,Type,Element,Line,Rep,Intensity,Unit");
+    m.injectionColumns().forEach(c -> b.append(',').append(c));
+    b.append('\n');
     Random noise = new Random(20270112L);
     for (int s = 0; s < sequence.size(); s++) {
       Solution sol = sequence.get(s);
+      StringBuilder cells = new StringBuilder();
+      m.injectionColumns().forEach(c -> cells.append(',').append(sol.cells().getOrDefault(c, "")));
       for (int a = 0; a < m.analytes().size(); a++) {
         Analyte an = m.analytes().get(a);
         double k = 40.0 + 17.0 * a;
@@ -237,14 +250,15 @@ class EndToEndIT {
           double y = (120 + k * truth) * (1 + 0.004 * noise.nextGaussian());
           b.append(s + 1).append(',').append(sol.id()).append(',').append(sol.type()).append(',').append(an.name()).append(',')
               .append(an.line().orElseGet(() -> an.mass().map(String::valueOf).orElse(""))).append(',').append(rep).append(',')
-              .append(String.format(java.util.Locale.ROOT, "%.3f", y)).append(",cps\n");
+              .append(String.format(java.util.Locale.ROOT, "%.3f", y)).append(",cps").append(cells).append('\n');
         }
       }
       for (InternalStandard is : m.internalStandards()) {
         for (int rep = 1; rep <= 3; rep++) {
           b.append(s + 1).append(',').append(sol.id()).append(',').append(sol.type()).append(',').append(is.element()).append(',')
               .append(is.line().orElseGet(() -> is.mass().map(String::valueOf).orElse(""))).append(',').append(rep).append(',')
-              .append(String.format(java.util.Locale.ROOT, "%.3f", 50000 * (1 + 0.004 * noise.nextGaussian()))).append(",cps\n");
+              .append(String.format(java.util.Locale.ROOT, "%.3f", 50000 * (1 + 0.004 * noise.nextGaussian()))).append(",cps")
+              .append(cells).append('\n');
         }
       }
     }
@@ -317,10 +331,14 @@ class EndToEndIT {
         new Solution("DW-2701-0001", "UNK", sample), new Solution("DW-2701-0001 D", "", sample),
         new Solution("DW-2701-0001 S", "", plus(sample, m.qc().spike().orElseThrow().added())),
         new Solution("DW-2701-0002", "UNK", scaled(sample, 0.5)),
+        new Solution("DW-2701-0003", "UNK", scaled(sample, 0.2), Map.of("Dil", "5")),
         new Solution("CCV-1", "QC2", m.qc().ccv().standard().trueValues()), new Solution("CCB-1", "QB", Map.of())));
     Path folder = processExample("drinking-water-trace-metals.yaml", seq);
     // the invented truth: 0.8 x S3 = 40 ug/L of Pb; within 3 % (noise 0.4 % per reading; signal / slope, common practice)
     assertEquals(40.0, value(folder, "DW-2701-0001", "Pb 220.353"), 1.2);
+    // the same sample diluted 1 + 4 before the run, its factor 5 in the export's Dil column:
+    // 8 ug/L measured x 5 = 40 ug/L (domain.md, dilution)
+    assertEquals(40.0, value(folder, "DW-2701-0003", "Pb 220.353"), 1.2);
   }
 
   @Test
@@ -349,9 +367,11 @@ class EndToEndIT {
   void soilExample() throws Exception {
     Method m = load("soil-digest-mg-per-kg.yaml");
     Map<String, Double> digest = scaled(level(m, "mid"), 0.5);
+    // the standards' levels come from the export's Level column (identification.level-column)
     List<Solution> seq = new ArrayList<>(List.of(new Solution("CAL-BLK", "Blank", Map.of()),
-        new Solution("low", "Standard", level(m, "low")), new Solution("mid", "Standard", level(m, "mid")),
-        new Solution("high", "Standard", level(m, "high")), new Solution("ICV", "ICV", m.qc().icv().trueValues()),
+        new Solution("STD-L", "Standard", level(m, "low"), Map.of("Level", "low")),
+        new Solution("STD-M", "Standard", level(m, "mid"), Map.of("Level", "mid")),
+        new Solution("STD-H", "Standard", level(m, "high"), Map.of("Level", "high")), new Solution("ICV", "ICV", m.qc().icv().trueValues()),
         new Solution("ICB", "ICB", Map.of()), new Solution("DB-0417", "", Map.of()),
         new Solution("CRM-0417", "", m.qc().lcs().orElseThrow().trueValues()),
         new Solution("SO-1101", "Sample", digest), new Solution("SO-1101/R", "", digest),

@@ -83,6 +83,7 @@ public final class ImportSettings {
   private final List<Pattern> contextPatterns;
   private final Optional<Pattern> dataRecordPattern;
   private final Map<String, String> options;
+  private final List<String> injectionColumns;
 
   private ImportSettings(Builder b) {
     importer = b.importer;
@@ -119,6 +120,7 @@ public final class ImportSettings {
     contextPatterns = List.copyOf(b.contextPatterns);
     dataRecordPattern = b.dataRecordPattern;
     options = Map.copyOf(b.options);
+    injectionColumns = List.copyOf(b.injectionColumns);
   }
 
   /**
@@ -400,6 +402,19 @@ public final class ImportSettings {
     return options;
   }
 
+  /**
+   * The export columns whose text every injection carries ({@link Injection#columns()}): the
+   * columns a method names per injection, such as a dilution factor or a standard's level. They
+   * are matched to the header as other column names are ({@link ColumnNames#normalise}); a column
+   * the export lacks is left out of every injection, and the run's {@link RawRun#columns()} show
+   * what the export has.
+   *
+   * @return the column names, in order (default none)
+   */
+  public List<String> injectionColumns() {
+    return injectionColumns;
+  }
+
   @Override
   public boolean equals(Object o) {
     return o instanceof ImportSettings s && key().equals(s.key());
@@ -422,7 +437,7 @@ public final class ImportSettings {
         invalidMarkers, unreadableTextInvalid, headerSearchLines, maxLineLength, maxFileBytes, maxInjections,
         maxAnalyteLines, fixedFields,
         contextPatterns.stream().map(Pattern::pattern).toList(), dataRecordPattern.map(Pattern::pattern),
-        options);
+        options, injectionColumns);
   }
 
   /** Builds {@link ImportSettings}; every method returns the builder. Not thread-safe. */
@@ -451,6 +466,7 @@ public final class ImportSettings {
     private List<Pattern> contextPatterns = new ArrayList<>();
     private Optional<Pattern> dataRecordPattern = Optional.empty();
     private Map<String, String> options = new LinkedHashMap<>();
+    private List<String> injectionColumns = new ArrayList<>();
 
     private Builder() {}
 
@@ -479,6 +495,7 @@ public final class ImportSettings {
       contextPatterns = new ArrayList<>(s.contextPatterns);
       dataRecordPattern = s.dataRecordPattern;
       options = new LinkedHashMap<>(s.options);
+      injectionColumns = new ArrayList<>(s.injectionColumns);
     }
 
     /**
@@ -763,6 +780,25 @@ public final class ImportSettings {
      */
     public Builder option(String key, String value) {
       options.put(Objects.requireNonNull(key), Objects.requireNonNull(value));
+      return this;
+    }
+
+    /**
+     * Adds an export column whose text every injection is to carry (once; a name already asked for,
+     * compared as header names are, is not added again).
+     *
+     * @param name the column's name as the method gives it
+     * @return this builder
+     * @see ImportSettings#injectionColumns()
+     */
+    public Builder injectionColumn(String name) {
+      if (ColumnNames.normalise(name).isEmpty()) {
+        throw new IllegalArgumentException("an injection column needs a name, got '" + name + "'");
+      }
+      String n = ColumnNames.normalise(name);
+      if (injectionColumns.stream().noneMatch(c -> ColumnNames.normalise(c).equals(n))) {
+        injectionColumns.add(name.strip());
+      }
       return this;
     }
 

@@ -1,6 +1,7 @@
 package org.quantrun.core.importer;
 
 import java.util.List;
+import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
 
@@ -15,6 +16,9 @@ import java.util.Optional;
  * @param timestamp the acquisition time stamp as exported (text, unparsed), if any
  * @param lines what each analyte line gave, in export order (one entry per analyte line)
  * @param position where the injection's first row was read
+ * @param columns the text of each per-injection column the import settings asked for
+ *     ({@link ImportSettings#injectionColumns()}) and the export has, by the name as asked, in the
+ *     order asked; empty when none was asked for
  */
 public record Injection(
     int sequence,
@@ -22,7 +26,24 @@ public record Injection(
     Optional<String> sampleType,
     Optional<String> timestamp,
     List<LineReadings> lines,
-    SourcePosition position) {
+    SourcePosition position,
+    Map<String, CellText> columns) {
+
+  /**
+   * An injection without per-injection columns (as before they existed).
+   *
+   * @param sequence the 1-based position in the run
+   * @param sampleId the sample id as exported; never blank
+   * @param sampleType the sample type the export gives, if any
+   * @param timestamp the acquisition time stamp as exported, if any
+   * @param lines what each analyte line gave, in export order
+   * @param position where the injection's first row was read
+   * @throws IllegalArgumentException if the sample id is blank or the sequence is below 1
+   */
+  public Injection(int sequence, String sampleId, Optional<String> sampleType, Optional<String> timestamp,
+      List<LineReadings> lines, SourcePosition position) {
+    this(sequence, sampleId, sampleType, timestamp, lines, position, Map.of());
+  }
 
   /**
    * Copies the list and checks the parts.
@@ -33,6 +54,7 @@ public record Injection(
    * @param timestamp the acquisition time stamp as exported (text, unparsed), if any
    * @param lines what each analyte line gave, in export order (one entry per analyte line)
    * @param position where the injection's first row was read
+   * @param columns the text of each per-injection column asked for, by the name as asked
    * @throws IllegalArgumentException if the sample id is blank or the sequence is below 1
    */
   public Injection {
@@ -41,6 +63,7 @@ public record Injection(
     Objects.requireNonNull(timestamp, "timestamp");
     lines = List.copyOf(lines);
     Objects.requireNonNull(position, "position");
+    columns = columns.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(columns));
     if (sampleId.isBlank()) {
       throw new IllegalArgumentException("sample id must not be blank");
     }
@@ -57,5 +80,22 @@ public record Injection(
    */
   public Optional<LineReadings> line(AnalyteLine analyteLine) {
     return lines.stream().filter(l -> l.analyteLine().equals(analyteLine)).findFirst();
+  }
+
+  /**
+   * The text of a per-injection column, its name compared as header names are
+   * ({@link ColumnNames#normalise}: letter case, surrounding spaces and separators ignored).
+   *
+   * @param name the column's name
+   * @return its text for this injection, or empty when the export did not give the column
+   */
+  public Optional<CellText> column(String name) {
+    CellText exact = columns.get(name);
+    if (exact != null) {
+      return Optional.of(exact);
+    }
+    String n = ColumnNames.normalise(name);
+    return columns.entrySet().stream().filter(e -> ColumnNames.normalise(e.getKey()).equals(n))
+        .map(Map.Entry::getValue).findFirst();
   }
 }

@@ -17,9 +17,24 @@ import java.util.Set;
  * @param importerId the id of the importer that read it
  * @param metadata run metadata in export order (keys may repeat)
  * @param injections the injections in sequence order
+ * @param columns the names of the export's columns as written (its header), in order; empty when
+ *     the importer does not report them
  */
 public record RawRun(
-    String sourceName, String importerId, List<MetadataEntry> metadata, List<Injection> injections) {
+    String sourceName, String importerId, List<MetadataEntry> metadata, List<Injection> injections,
+    List<String> columns) {
+
+  /**
+   * A run whose importer does not report the export's column names.
+   *
+   * @param sourceName the name of the source as given to the importer (used in every message)
+   * @param importerId the id of the importer that read it
+   * @param metadata run metadata in export order (keys may repeat)
+   * @param injections the injections in sequence order
+   */
+  public RawRun(String sourceName, String importerId, List<MetadataEntry> metadata, List<Injection> injections) {
+    this(sourceName, importerId, metadata, injections, List.of());
+  }
 
   /**
    * Copies the lists and checks for nulls.
@@ -28,12 +43,26 @@ public record RawRun(
    * @param importerId the id of the importer that read it
    * @param metadata run metadata in export order (keys may repeat)
    * @param injections the injections in sequence order
+   * @param columns the names of the export's columns as written, in order
    */
   public RawRun {
     Objects.requireNonNull(sourceName, "sourceName");
     Objects.requireNonNull(importerId, "importerId");
     metadata = List.copyOf(metadata);
     injections = List.copyOf(injections);
+    columns = List.copyOf(columns);
+  }
+
+  /**
+   * Whether the export has a column of this name, compared as header names are
+   * ({@link ColumnNames#normalise}).
+   *
+   * @param name the column's name
+   * @return {@code true} when one of {@link #columns()} has that name
+   */
+  public boolean hasColumn(String name) {
+    String n = ColumnNames.normalise(name);
+    return columns.stream().anyMatch(c -> ColumnNames.normalise(c).equals(n));
   }
 
   /**

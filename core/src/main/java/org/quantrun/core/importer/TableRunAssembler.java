@@ -20,6 +20,10 @@ import java.util.regex.Pattern;
  * injection key stays the same from one row to the next: the sequence number when there is a
  * sequence column; else, when there is a replicate column, the sample id (in wide layout a
  * replicate number that does not rise starts a new injection); else the sample id and time stamp.
+ *
+ * <p>The columns of {@link ImportSettings#injectionColumns()} that the header has are read once per
+ * injection into {@link Injection#columns()}: a blank cell agrees with any value; two rows of one
+ * injection with different texts are an import error naming line, column and both values.
  */
 public final class TableRunAssembler {
 
@@ -51,6 +55,15 @@ public final class TableRunAssembler {
   private String currentKey;
   private InjectionBuilder current;
 
+  /** The per-injection columns asked for ({@link ImportSettings#injectionColumns()}), as asked and normalised. */
+  private final String[] extraNames;
+  private final String[] extraNorms;
+  /** The cell index of each per-injection column in the header, -1 when the header lacks it. */
+  private int[] colExtra = new int[0];
+  private boolean anyExtra;
+  private final String numberFormat;
+  private List<String> exportColumns = List.of();
+
   /**
    * An assembler for one read.
    *
@@ -66,6 +79,21 @@ public final class TableRunAssembler {
     ColumnNames.DEFAULT_ALIASES.forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(n, c)));
     ColumnNames.ALL.forEach(c -> aliasToCanonical.put(ColumnNames.normalise(c), c));
     settings.columnAliases().forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(ColumnNames.normalise(n), c)));
+    extraNames = settings.injectionColumns().toArray(new String[0]);
+    extraNorms = new String[extraNames.length];
+    for (int k = 0; k < extraNames.length; k++) {
+      extraNorms[k] = ColumnNames.normalise(extraNames[k]);
+    }
+    numberFormat = values.numberFormat();
+  }
+
+  private int extraIndex(String norm) {
+    for (int k = 0; k < extraNorms.length; k++) {
+      if (extraNorms[k].equals(norm)) {
+        return k;
+      }
+    }
+    return -1;
   }
 
   /**
@@ -150,12 +178,24 @@ public final class TableRunAssembler {
     List<WideColumn> wide = new ArrayList<>();
     List<String> duplicates = new ArrayList<>();
     Map<String, Integer> wideKeys = new HashMap<>();
+    int[] extra = new int[extraNames.length];
+    java.util.Arrays.fill(extra, -1);
+    List<String> present = new ArrayList<>(names.size());
     int known = 0;
     for (int i = 0; i < names.size(); i++) {
       String raw = names.get(i).replace("\uFEFF", "").strip();
       String norm = ColumnNames.normalise(raw);
       if (norm.isEmpty()) {
         continue;
+      }
+      present.add(raw);
+      int x = extraIndex(norm);
+      if (x >= 0) {
+        if (extra[x] >= 0) {
+          duplicates.add(duplicateText(names, columns, extra[x], i, "column '" + extraNames[x] + "'"));
+        } else {
+          extra[x] = i;
+        }
       }
       String c = aliasToCanonical.get(norm);
       if (c != null && (settings.layout() == Layout.LONG || isKeyField(c))) {
@@ -164,6 +204,10 @@ public final class TableRunAssembler {
         if (before != null) {
           duplicates.add(duplicateText(names, columns, before, i, c));
         }
+        continue;
+      }
+      if (x >= 0) {
+        // a column the method reads per injection is neither a replicate nor an analyte column
         continue;
       }
       if (settings.layout() == Layout.LONG) {
@@ -217,6 +261,11 @@ public final class TableRunAssembler {
     colMean = index(canon, ColumnNames.MEAN);
     colSd = index(canon, ColumnNames.SD);
     replicateIndexes = reps.stream().mapToInt(Integer::intValue).toArray();
+    colExtra = extra;
+    for (int x : extra) {
+      anyExtra |= x >= 0;
+    }
+    exportColumns = List.copyOf(present);
     headerLine = line;
     headerNames = List.copyOf(names);
     headerColumns = columns.clone();
@@ -436,6 +485,13 @@ public final class TableRunAssembler {
       String type = colType >= 0 ? cell(cells, colType).strip() : contextType.orElse("").strip();
       current = new InjectionBuilder(sequence, sampleId, nonBlank(type), nonBlank(timestamp), SourcePosition.ofLine(line));
       currentKey = key;
+      if (anyExtra) {
+        current.extras = new String[colExtra.length];
+        current.extraPositions = new SourcePosition[colExtra.length];
+      }
+    }
+    if (anyExtra) {
+      extraCells(cells, line);
     }
     String rowUnit = colUnit >= 0 ? cell(cells, colUnit) : "";
     String remark = colRemark >= 0 ? cell(cells, colRemark) : "";
@@ -443,6 +499,30 @@ public final class TableRunAssembler {
       longRow(cells, line, rowUnit, remark);
     } else {
       wideRow(cells, line, rowUnit, remark);
+    }
+  }
+
+  /** Takes the per-injection columns' text from a row: once per injection, the same on every row that gives it. */
+  private void extraCells(List<String> cells, int line) throws ImportException {
+    for (int k = 0; k < colExtra.length; k++) {
+      int at = colExtra[k];
+      if (at < 0) {
+        continue;
+      }
+      String text = cell(cells, at).strip();
+      if (text.isEmpty()) {
+        continue;
+      }
+      String before = current.extras[k];
+      if (before == null) {
+        current.extras[k] = text;
+        current.extraPositions[k] = new SourcePosition(line, column(at));
+      } else if (!before.equals(text)) {
+        throw new ImportException(sourceName, new SourcePosition(line, column(at)), "column '" + name(at)
+            + "' of injection " + current.sequence + " '" + current.sampleId + "' is \"" + text + "\" here but \""
+            + before + "\" on line " + current.extraPositions[k].line()
+            + " (a column read per injection must give one value for the whole injection)");
+      }
     }
   }
 
@@ -565,9 +645,27 @@ public final class TableRunAssembler {
 
   private void closeInjection() {
     if (current != null) {
-      injections.add(current.build());
+      injections.add(current.build(extraColumns()));
       current = null;
     }
+  }
+
+  /** The current injection's per-injection columns, by the name as asked. */
+  private Map<String, CellText> extraColumns() {
+    if (!anyExtra) {
+      return Map.of();
+    }
+    Map<String, CellText> out = new LinkedHashMap<>();
+    for (int k = 0; k < colExtra.length; k++) {
+      if (colExtra[k] < 0) {
+        continue;
+      }
+      String text = current.extras[k] == null ? "" : current.extras[k];
+      SourcePosition at = current.extraPositions[k] != null ? current.extraPositions[k]
+          : new SourcePosition(current.position.line(), column(colExtra[k]));
+      out.put(extraNames[k], new CellText(text, values.number(text), numberFormat, at));
+    }
+    return out;
   }
 
   /**
@@ -584,7 +682,7 @@ public final class TableRunAssembler {
     if (injections.isEmpty()) {
       throw new ImportException(sourceName, SourcePosition.ofLine(headerLine), "the header has no data rows after it");
     }
-    return new RawRun(sourceName, importerId, metadata, injections);
+    return new RawRun(sourceName, importerId, metadata, injections, exportColumns);
   }
 
   private enum Stat { REPLICATE, MEAN, SD, IGNORED }
@@ -598,6 +696,9 @@ public final class TableRunAssembler {
     final Optional<String> timestamp;
     final SourcePosition position;
     final Map<AnalyteLine, LineBuilder> lines = new LinkedHashMap<>();
+    /** The text and position of each per-injection column, null until a row gives it. */
+    String[] extras;
+    SourcePosition[] extraPositions;
 
     InjectionBuilder(int sequence, String sampleId, Optional<String> type, Optional<String> timestamp,
         SourcePosition position) {
@@ -627,12 +728,12 @@ public final class TableRunAssembler {
       return lb;
     }
 
-    Injection build() {
+    Injection build(Map<String, CellText> columns) {
       List<LineReadings> out = new ArrayList<>(lines.size());
       for (LineBuilder lb : lines.values()) {
         out.add(lb.build());
       }
-      return new Injection(sequence, sampleId, type, timestamp, out, position);
+      return new Injection(sequence, sampleId, type, timestamp, out, position, columns);
     }
   }
 

@@ -62,8 +62,32 @@ public final class ValueReader {
   }
 
   private String hint() {
-    return " (decimal separator '" + decimal + "'"
-        + (hasGrouping ? ", thousands separator '" + grouping + "'" : ", no thousands separator") + ")";
+    return " (" + numberFormat() + ")";
+  }
+
+  /**
+   * How this reader reads numbers, in words for messages.
+   *
+   * @return e.g. {@code decimal separator ',', no thousands separator}
+   */
+  public String numberFormat() {
+    return "decimal separator '" + decimal + "'"
+        + (hasGrouping ? ", thousands separator '" + grouping + "'" : ", no thousands separator");
+  }
+
+  /**
+   * Reads a text as a number in this format, without markers or errors.
+   *
+   * @param raw the text as exported
+   * @return the finite value, or empty when the text is blank or not a number in this format
+   */
+  public java.util.OptionalDouble number(String raw) {
+    String s = raw.strip();
+    if (s.isEmpty()) {
+      return java.util.OptionalDouble.empty();
+    }
+    double v = parse(s);
+    return Double.isNaN(v) ? java.util.OptionalDouble.empty() : java.util.OptionalDouble.of(v);
   }
 
   /**

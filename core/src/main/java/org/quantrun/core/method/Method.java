@@ -74,6 +74,21 @@ public record Method(
   }
 
   /**
+   * The export columns this method reads per injection, for the import settings
+   * ({@code org.quantrun.core.importer.ImportSettings.Builder#injectionColumn}): the standard's
+   * level column ({@code identification.level-column}), then the dilution factor column
+   * ({@code dilution.factor-column}), each when given.
+   *
+   * @return the column names, in that order
+   */
+  public List<String> injectionColumns() {
+    List<String> out = new java.util.ArrayList<>(2);
+    identification.levelColumn().ifPresent(out::add);
+    dilution.factorColumn().ifPresent(out::add);
+    return List.copyOf(out);
+  }
+
+  /**
    * Finds an internal standard by name.
    *
    * @param name its name

@@ -32,6 +32,11 @@ record Classified(
         || role == SampleRole.SPIKE_DUPLICATE || role == SampleRole.SERIAL_DILUTION;
   }
 
+  /** Prepared like a sample (its dilution and prep apply): real samples, method blanks and LCS. */
+  boolean isPrepared() {
+    return isRealSample() || role == SampleRole.METHOD_BLANK || role == SampleRole.LCS;
+  }
+
   /** Calibration solutions (fitted, not quantified) and ignored injections. */
   boolean isCalibrationOrIgnored() {
     return role == SampleRole.CALIBRATION_BLANK || role == SampleRole.STANDARD || role == SampleRole.IGNORE;

@@ -20,8 +20,10 @@ import org.quantrun.core.method.UnmatchedPolicy;
  * Gives every injection its role by the method's identification rules: the exported type column
  * (through the method's value map) and the ordered ID rules (the first whose pattern matches the
  * whole sample ID). When both give a role, the method's order decides; the other still supplies a
- * standard's level or a duplicate's parent. A standard whose level no rule gives is looked up by
- * its sample ID among the level names.
+ * standard's level or a duplicate's parent. A standard's level comes from the export's level column
+ * ({@code identification.level-column}) when its cell is not blank (a rule's level must then agree),
+ * else from the rule; a standard whose level neither gives is looked up by its sample ID among the
+ * level names.
  */
 final class InjectionClassifier {
   private InjectionClassifier() {}
@@ -61,13 +63,27 @@ final class InjectionClassifier {
         parent = r.of().map(t -> IdRule.expand(t, m));
       }
       if (role == SampleRole.STANDARD) {
+        Optional<String> column = id.levelColumn();
+        Optional<String> fromColumn = column.isPresent()
+            ? InjectionColumns.level(run, inj, method, column.get()) : Optional.empty();
+        if (fromColumn.isPresent()) {
+          if (level.isPresent() && !level.get().equals(fromColumn.get())) {
+            throw new ProcessingException(run.sourceName() + ": injection " + inj.sequence() + " '" + inj.sampleId()
+                + "' is standard level '" + fromColumn.get() + "' by the export's '" + column.get() + "' column ("
+                + InjectionColumns.LEVEL_KEY + "), but rule " + byRule.get().number() + " '" + byRule.get().rule().pattern()
+                + "' gives level '" + level.get() + "' (make the rule and the column agree, or drop the rule's level)");
+          }
+          level = fromColumn;
+          how = how + ", level from the export's '" + column.get() + "' column";
+        }
         if (level.isEmpty() && method.level(inj.sampleId()).isPresent()) {
           level = Optional.of(inj.sampleId());
         }
         if (level.isEmpty()) {
           throw new ProcessingException(run.sourceName() + ": injection " + inj.sequence() + " '" + inj.sampleId()
               + "' is a standard (" + how + "), but no rule gives its level and no level is named '"
-              + inj.sampleId() + "' (add a level template to the standard rule)");
+              + inj.sampleId() + "' (" + column.map(c -> "fill in its '" + c + "' column, or add").orElse("add")
+              + " a level template to the standard rule)");
         }
         String name = level.get();
         if (method.level(name).isEmpty()) {

@@ -62,11 +62,10 @@ public final class RunProcessor {
       throw new ProcessingException(run.sourceName() + ": the method " + method.identity().id()
           + " reports through a prep sheet, and none was given (pass the prep sheet CSV)");
     }
+    InjectionColumns.check(run, method);
     List<Classified> injections = InjectionClassifier.classify(run, method);
     List<String> findings = new ArrayList<>();
-    method.dilution().factorColumn().ifPresent(col -> findings.add("dilution.factor-column '" + col
-        + "' was not applied: the importers do not pass per-injection columns; every sample got the default factor "
-        + Text.num(method.dilution().defaultFactor()) + " (use a prep sheet for per-sample factors)"));
+    unappliedFactors(method, injections, findings);
     SignalTable table = new SignalTable(run, injections);
     Map<String, InternalStandardWork> isWorks = internalStandards(method, injections, table, findings);
 
@@ -115,6 +114,25 @@ public final class RunProcessor {
 
   // The steps of process, each a method of its own: small methods are compiled quickly and alone,
   // and no loop of a long method is compiled on its own again and again.
+
+  /**
+   * Notes every calibration solution or check whose factor cell gives a factor other than 1: they
+   * are measured as made, so it is not applied.
+   */
+  private static void unappliedFactors(Method method, List<Classified> injections, List<String> findings) {
+    Optional<String> column = method.dilution().factorColumn();
+    if (column.isEmpty()) {
+      return;
+    }
+    for (Classified c : injections) {
+      java.util.OptionalDouble f = InjectionColumns.factor(c.injection(), column.get());
+      if (!c.isPrepared() && f.isPresent() && f.getAsDouble() != 1) {
+        findings.add("injection " + c.position() + " '" + c.sampleId() + "' (" + c.role().token() + ") has dilution factor "
+            + Text.num(f.getAsDouble()) + " in the export's '" + column.get() + "' column; it was not applied, because "
+            + "calibration solutions and checks are measured as made");
+      }
+    }
+  }
 
   /** The work of every internal standard of the method, by name. */
   private static Map<String, InternalStandardWork> internalStandards(Method method, List<Classified> injections,

@@ -5,11 +5,11 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import org.quantrun.core.method.ConcentrationUnit;
 import org.quantrun.core.method.DilutionScheme;
 import org.quantrun.core.method.Method;
 import org.quantrun.core.method.PrepSheetLayout;
-import org.quantrun.core.method.SampleRole;
 import org.quantrun.core.method.SolidsBasis;
 import org.quantrun.core.method.prep.PrepSheet;
 import org.quantrun.core.method.prep.PrepSheetRow;
@@ -22,7 +22,10 @@ import org.quantrun.core.method.prep.PrepSheetRow;
  *   <li>Samples, duplicates, spikes, serial dilutions, method blanks and LCS use their prep-sheet
  *       row when the method has a prep sheet (a duplicate or spike without a row of its own uses
  *       its parent's): C_sample = C_solution * DF * V_final / mass, as received or, with a solids
- *       fraction, dry weight; else the method's default dilution factor.
+ *       fraction, dry weight; else the method's default dilution factor. When the method names a
+ *       factor column ({@code dilution.factor-column}), a non-blank cell of the injection gives its
+ *       factor instead of the default; with a prep-sheet row it is one more step and multiplies the
+ *       row's factor (domain.md, dilution: DF is the product of every step).
  * </ul>
  *
  * The factor is linear, so it applies alike to the value, its half-width and the limits.
@@ -85,9 +88,7 @@ final class SamplePrep {
 
   private PrepOf prepOf(Classified c, ConcentrationUnit unit) {
     String solutionUnit = unit.token();
-    SampleRole r = c.role();
-    boolean prepared = c.isRealSample() || r == SampleRole.METHOD_BLANK || r == SampleRole.LCS;
-    if (!prepared) {
+    if (!c.isPrepared()) {
       return new PrepOf(1, 1, solutionUnit, Optional.empty(), List.of(), Optional.empty());
     }
     Optional<PrepSheetRow> row = sheet.flatMap(s -> s.row(c.sampleId()));
@@ -95,9 +96,20 @@ final class SamplePrep {
       row = sheet.flatMap(s -> s.row(c.parent().get()));
     }
     DilutionScheme scheme = method.dilution();
+    Optional<String> column = scheme.factorColumn();
+    OptionalDouble exported = column.isEmpty() ? OptionalDouble.empty() : InjectionColumns.factor(c.injection(), column.get());
     if (row.isEmpty()) {
-      double df = scheme.defaultFactor();
-      List<String> trace = df == 1 ? List.of() : List.of("default dilution factor " + Text.num(df));
+      double df;
+      List<String> trace;
+      if (exported.isPresent()) {
+        df = exported.getAsDouble();
+        trace = List.of("dilution factor " + Text.num(df) + " from the export's '" + column.get() + "' column");
+      } else {
+        df = scheme.defaultFactor();
+        trace = column.isPresent()
+            ? List.of("default dilution factor " + Text.num(df) + " (the export's '" + column.get() + "' column is blank)")
+            : df == 1 ? List.of() : List.of("default dilution factor " + Text.num(df));
+      }
       Optional<String> problem = sheet.isPresent() && c.isRealSample()
           ? Optional.of("sample " + c.sampleId() + " is not on the prep sheet " + sheet.get().source())
           : Optional.empty();
@@ -105,17 +117,24 @@ final class SamplePrep {
     }
     PrepSheetRow p = row.get();
     PrepSheetLayout layout = scheme.prepSheet().get();
-    Optional<Double> factor = p.toSampleBasis(1.0, unit, layout);
-    List<String> trace = new ArrayList<>(2);
+    // the export's factor is a step of its own (the measured solution's dilution): every step multiplies
+    double step = exported.orElse(1);
+    Optional<Double> factor = p.toSampleBasis(step, unit, layout);
+    List<String> trace = new ArrayList<>(3);
     trace.add("prep sheet line " + p.line() + ": dilution factor " + Text.num(p.dilutionFactor()) + ", "
         + Text.num(p.sampleMass()) + " g made up to " + Text.num(p.finalVolume()) + " mL"
         + (layout.basis() == SolidsBasis.DRY_WEIGHT ? p.solidsFraction().map(f -> ", solids fraction " + Text.num(f)).orElse("") : ""));
+    if (exported.isPresent()) {
+      trace.add("dilution factor " + Text.num(step) + " from the export's '" + column.get() + "' column, times the prep sheet's "
+          + Text.num(p.dilutionFactor()) + ": " + Text.num(step * p.dilutionFactor()));
+    }
+    double df = p.dilutionFactor() * step;
     if (factor.isEmpty()) {
-      return new PrepOf(Double.NaN, p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), List.copyOf(trace),
+      return new PrepOf(Double.NaN, df, layout.reportUnit().token(), Optional.of(p.prepBatch()), List.copyOf(trace),
           Optional.of("dry-weight reporting needs a solids fraction, and the prep sheet gives none for " + p.sampleId()));
     }
     trace.add("to " + layout.reportUnit().token() + " " + layout.basis().token() + ": x " + Text.num(factor.get()));
-    return new PrepOf(factor.get(), p.dilutionFactor(), layout.reportUnit().token(), Optional.of(p.prepBatch()), List.copyOf(trace),
+    return new PrepOf(factor.get(), df, layout.reportUnit().token(), Optional.of(p.prepBatch()), List.copyOf(trace),
         Optional.empty());
   }
 

@@ -20,6 +20,8 @@ final class RunBuilder {
   private final List<Injection> injections = new ArrayList<>();
   private final List<MetadataEntry> metadata = new ArrayList<>();
   private int line = 2;
+  private List<String> columns = List.of();
+  private final java.util.Map<String, org.quantrun.core.importer.CellText> cells = new java.util.LinkedHashMap<>();
 
   RunBuilder(String source) {
     this.source = source;
@@ -27,6 +29,25 @@ final class RunBuilder {
 
   RunBuilder meta(String key, String value) {
     metadata.add(new MetadataEntry(key, value, new SourcePosition(1, 1)));
+    return this;
+  }
+
+  /** The export's column names, as an importer reports its header. */
+  RunBuilder columns(String... names) {
+    columns = List.of(names);
+    return this;
+  }
+
+  /**
+   * A per-injection cell of the next injection (every column named by {@link #columns} that is not
+   * given is blank), read as a number with a decimal point (as the
+   * delimited importer would with the default profile); column 9 of its first line.
+   */
+  RunBuilder cell(String column, String text) {
+    org.quantrun.core.importer.ValueReader reader =
+        new org.quantrun.core.importer.ValueReader(source, org.quantrun.core.importer.ImportSettings.DEFAULT);
+    cells.put(column, new org.quantrun.core.importer.CellText(text.strip(), reader.number(text), reader.numberFormat(),
+        new SourcePosition(line, 9)));
     return this;
   }
 
@@ -47,13 +68,19 @@ final class RunBuilder {
       lines.add(new LineReadings(AnalyteLine.of(al[0], al.length > 1 ? al[1] : ""), Optional.of("cps"), reps,
           Optional.empty(), Optional.empty(), Optional.empty(), new SourcePosition(first, 1)));
     }
+    for (String c : columns) {
+      if (!cells.containsKey(c)) {
+        cell(c, "");
+      }
+    }
     injections.add(new Injection(injections.size() + 1, sampleId, Optional.empty(), Optional.empty(), lines,
-        new SourcePosition(first, 1)));
+        new SourcePosition(first, 1), cells));
+    cells.clear();
     return this;
   }
 
   RawRun build() {
-    return new RawRun(source, "test", metadata, injections);
+    return new RawRun(source, "test", metadata, injections, columns);
   }
 
   static double[] r(double... v) {

@@ -139,16 +139,5 @@ class RunProcessorFlagsTest {
     assertTrue(t.stream().anyMatch(s -> s.startsWith("calibration blank signal 100 subtracted")), t.toString());
     assertTrue(t.stream().anyMatch(s -> s.startsWith("read off the linear curve (weighting none, 3 points)")), t.toString());
     assertTrue(t.stream().anyMatch(s -> s.startsWith("x0 read off the curve")), t.toString());
-  }
-
-  @Test
-  @DisplayName("a dilution factor column that cannot be applied is reported, never silently ignored")
-  void factorColumnIsReported() {
-    Method m = RunBuilder.method(yaml("", "", "1").replace("dilution: {default-factor: 1}",
-        "dilution: {default-factor: 1, factor-column: Dil}"));
-    RunResult res = RunProcessor.process(calibrated().inject("ICV", PB, sig(50)).inject("CCV1", PB, sig(50)).build(), m,
-        Optional.empty());
-    assertTrue(res.findings().stream().anyMatch(f -> f.startsWith("dilution.factor-column 'Dil' was not applied")),
-        res.findings().toString());
-  }
+   }
 }

@@ -286,6 +286,8 @@ public final class RunBatch {
     for (Map.Entry<String, String> e : method.importSettings().settings().entrySet()) {
       b.option(e.getKey(), e.getValue());
     }
+    // the columns the method reads per injection (a standard's level, a dilution factor)
+    method.injectionColumns().forEach(b::injectionColumn);
     settings = b.build();
 
     Optional<PrepSheet> prep = Optional.empty();
