@@ -231,17 +231,20 @@ class EndToEndIT {
    * A synthetic long-layout export for a method: every solution is measured on every analyte line
    * (and internal standard) with 3 readings; signal = 120 + k x concentration, k different per line,
    * 0.4 % reading noise from a fixed seed. Internal standards read 50,000 in every solution. The
+   * type is in the third column, headed as the method's type column (else {@code Type}); the other
    * columns the method reads per injection come last, on every row of the injection.
    */
   static String export(Method m, List<Solution> sequence) {
-    StringBuilder b = new StringBuilder("Seq,Sample ID,Type,Element,Line,Rep,Intensity,Unit");
-    m.injectionColumns().forEach(c -> b.append(',').append(c));
+    Optional<String> typeColumn = m.identification().typeColumn();
+    List<String> others = m.injectionColumns().stream().filter(c -> typeColumn.isEmpty() || !c.equals(typeColumn.get())).toList();
+    StringBuilder b = new StringBuilder("Seq,Sample ID," + typeColumn.orElse("Type") + ",Element,Line,Rep,Intensity,Unit");
+    others.forEach(c -> b.append(',').append(c));
     b.append('\n');
     Random noise = new Random(20270112L);
     for (int s = 0; s < sequence.size(); s++) {
       Solution sol = sequence.get(s);
       StringBuilder cells = new StringBuilder();
-      m.injectionColumns().forEach(c -> cells.append(',').append(sol.cells().getOrDefault(c, "")));
+      others.forEach(c -> cells.append(',').append(sol.cells().getOrDefault(c, "")));
       for (int a = 0; a < m.analytes().size(); a++) {
         Analyte an = m.analytes().get(a);
         double k = 40.0 + 17.0 * a;

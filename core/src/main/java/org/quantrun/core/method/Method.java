@@ -75,14 +75,16 @@ public record Method(
 
   /**
    * The export columns this method reads per injection, for the import settings
-   * ({@code org.quantrun.core.importer.ImportSettings.Builder#injectionColumn}): the standard's
-   * level column ({@code identification.level-column}), then the dilution factor column
+   * ({@code org.quantrun.core.importer.ImportSettings.Builder#injectionColumn}): the type column
+   * ({@code identification.type-column}), the standard's level column
+   * ({@code identification.level-column}), then the dilution factor column
    * ({@code dilution.factor-column}), each when given.
    *
    * @return the column names, in that order
    */
   public List<String> injectionColumns() {
-    List<String> out = new java.util.ArrayList<>(2);
+    List<String> out = new java.util.ArrayList<>(3);
+    identification.typeColumn().ifPresent(out::add);
     identification.levelColumn().ifPresent(out::add);
     dilution.factorColumn().ifPresent(out::add);
     return List.copyOf(out);

@@ -18,7 +18,7 @@ import org.quantrun.core.method.UnmatchedPolicy;
 
 /**
  * Gives every injection its role by the method's identification rules: the exported type column
- * (through the method's value map) and the ordered ID rules (the first whose pattern matches the
+ * named by {@code identification.type-column} (through the method's value map) and the ordered ID rules (the first whose pattern matches the
  * whole sample ID). When both give a role, the method's order decides; the other still supplies a
  * standard's level or a duplicate's parent. A standard's level comes from the export's level column
  * ({@code identification.level-column}) when its cell is not blank (a rule's level must then agree),
@@ -36,14 +36,15 @@ final class InjectionClassifier {
     List<Pattern> patterns = id.rules().stream().map(r -> Pattern.compile(r.pattern())).toList();
     for (int i = 0; i < injections.size(); i++) {
       Injection inj = injections.get(i);
-      Optional<SampleRole> byType = inj.sampleType().flatMap(t -> typeRole(id.typeValues(), t));
+      Optional<String> type = InjectionColumns.type(run, inj, id.typeColumn());
+      Optional<SampleRole> byType = type.flatMap(t -> typeRole(id.typeValues(), t));
       Optional<RuleMatch> byRule = firstRule(id.rules(), patterns, inj.sampleId());
       SampleRole role;
       String how;
       boolean typeFirst = id.order() == IdentificationOrder.TYPE_COLUMN_FIRST;
       if (byType.isPresent() && (typeFirst || byRule.isEmpty())) {
         role = byType.get();
-        how = "type column '" + inj.sampleType().get() + "'";
+        how = "type column '" + type.get() + "'";
       } else if (byRule.isPresent()) {
         role = byRule.get().rule().role();
         how = "rule " + byRule.get().number() + " '" + byRule.get().rule().pattern() + "'";

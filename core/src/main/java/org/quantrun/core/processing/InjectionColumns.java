@@ -10,12 +10,13 @@ import org.quantrun.core.method.Method;
 import org.quantrun.core.method.StandardLevel;
 
 /**
- * The export columns a method reads per injection ({@code identification.level-column},
- * {@code dilution.factor-column}): the run must have them, and their text must be what the method
+ * The export columns a method reads per injection ({@code identification.type-column},
+ * {@code identification.level-column}, {@code dilution.factor-column}): the run must have them, and their text must be what the method
  * expects. Every problem is one {@link ProcessingException} naming the export, the line and column,
  * the method key, the text found and what was expected.
  */
 final class InjectionColumns {
+  static final String TYPE_KEY = "identification.type-column";
   static final String LEVEL_KEY = "identification.level-column";
   static final String FACTOR_KEY = "dilution.factor-column";
 
@@ -23,6 +24,7 @@ final class InjectionColumns {
 
   /** Refuses a run whose export lacks a column the method names, then any factor cell that is not a positive number. */
   static void check(RawRun run, Method method) {
+    present(run, TYPE_KEY, method.identification().typeColumn());
     present(run, LEVEL_KEY, method.identification().levelColumn());
     present(run, FACTOR_KEY, method.dilution().factorColumn());
     Optional<String> factor = method.dilution().factorColumn();
@@ -58,6 +60,21 @@ final class InjectionColumns {
     return inj.column(column).orElseThrow(() -> new ProcessingException(run.sourceName() + ":" + inj.position().text()
         + ": injection " + inj.sequence() + " '" + inj.sampleId() + "': the importer '" + run.importerId()
         + "' gave no text of the column '" + column + "' (" + key + "), although the export has it"));
+  }
+
+  /**
+   * The type an injection states: the text of the method's type column when the method names one
+   * (the export has it: see {@link #check}), else the type the importer found by its own column
+   * names ({@link Injection#sampleType()}).
+   *
+   * @return the type's text, or empty for a blank cell or no type
+   */
+  static Optional<String> type(RawRun run, Injection inj, Optional<String> column) {
+    if (column.isEmpty()) {
+      return inj.sampleType();
+    }
+    CellText c = cell(run, inj, TYPE_KEY, column.get());
+    return c.isBlank() ? Optional.empty() : Optional.of(c.text());
   }
 
   /**

@@ -22,6 +22,7 @@ final class RunBuilder {
   private int line = 2;
   private List<String> columns = List.of();
   private final java.util.Map<String, org.quantrun.core.importer.CellText> cells = new java.util.LinkedHashMap<>();
+  private Optional<String> type = Optional.empty();
 
   RunBuilder(String source) {
     this.source = source;
@@ -51,6 +52,12 @@ final class RunBuilder {
     return this;
   }
 
+  /** The sample type the importer found for the next injection by its own column names (a {@code Type} column, say). */
+  RunBuilder type(String text) {
+    type = Optional.of(text);
+    return this;
+  }
+
   /** An injection whose lines are given as "Analyte line" followed by its readings. */
   RunBuilder inject(String sampleId, Object... lineThenReadings) {
     List<LineReadings> lines = new ArrayList<>();
@@ -73,9 +80,10 @@ final class RunBuilder {
         cell(c, "");
       }
     }
-    injections.add(new Injection(injections.size() + 1, sampleId, Optional.empty(), Optional.empty(), lines,
+    injections.add(new Injection(injections.size() + 1, sampleId, type, Optional.empty(), lines,
         new SourcePosition(first, 1), cells));
     cells.clear();
+    type = Optional.empty();
     return this;
   }
 
