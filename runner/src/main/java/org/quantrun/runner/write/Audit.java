@@ -134,52 +134,70 @@ public record Audit(
       g.writeStringField("host", host);
       g.writeStringField("started", started.toString());
       g.writeStringField("finished", finished.toString());
-      g.writeArrayFieldStart("arguments");
-      for (String a : arguments) {
-        g.writeString(a);
-      }
-      g.writeEndArray();
+      strings(g, "arguments", arguments);
       g.writeObjectFieldStart("method");
       g.writeStringField("id", method.id());
       g.writeStringField("version", method.version());
       g.writeStringField("sha256", method.sha256());
       g.writeEndObject();
-      g.writeArrayFieldStart("inputs");
-      for (InputFile f : inputs) {
-        g.writeStartObject();
-        g.writeStringField("role", f.role());
-        g.writeStringField("name", f.name());
-        g.writeStringField("path", f.path());
-        g.writeStringField("sha256", f.sha256());
-        g.writeNumberField("bytes", f.bytes());
-        g.writeEndObject();
-      }
-      g.writeEndArray();
+      inputs(g, inputs);
       g.writeStringField("importer_id", importerId);
-      g.writeArrayFieldStart("plugins");
-      for (PluginRef p : plugins) {
-        g.writeStartObject();
-        g.writeStringField("plugin_id", p.pluginId());
-        g.writeStringField("version", p.version());
-        g.writeStringField("importer_id", p.importerId());
-        g.writeStringField("jar", p.jar().orElse(null));
-        g.writeStringField("sha256", p.sha256().orElse(null));
-        g.writeEndObject();
-      }
-      g.writeEndArray();
-      g.writeArrayFieldStart("outputs");
-      for (OutputFile f : outputs) {
-        g.writeStartObject();
-        g.writeStringField("name", f.name());
-        g.writeStringField("sha256", f.sha256());
-        g.writeNumberField("bytes", f.bytes());
-        g.writeEndObject();
-      }
-      g.writeEndArray();
+      plugins(g, plugins);
+      outputs(g, outputs);
       g.writeEndObject();
     } catch (IOException e) {
       throw new IllegalStateException("cannot write audit.json", e);
     }
     return text.toString().concat("\n").getBytes(StandardCharsets.UTF_8);
+  }
+
+  // each list in a method of its own, so the long method above stays short for the compiler
+
+  private static void strings(JsonGenerator g, String key, List<String> values) throws IOException {
+    g.writeArrayFieldStart(key);
+    for (String a : values) {
+      g.writeString(a);
+    }
+    g.writeEndArray();
+  }
+
+  private static void inputs(JsonGenerator g, List<InputFile> inputs) throws IOException {
+    g.writeArrayFieldStart("inputs");
+    for (InputFile f : inputs) {
+      g.writeStartObject();
+      g.writeStringField("role", f.role());
+      g.writeStringField("name", f.name());
+      g.writeStringField("path", f.path());
+      g.writeStringField("sha256", f.sha256());
+      g.writeNumberField("bytes", f.bytes());
+      g.writeEndObject();
+    }
+    g.writeEndArray();
+  }
+
+  private static void plugins(JsonGenerator g, List<PluginRef> plugins) throws IOException {
+    g.writeArrayFieldStart("plugins");
+    for (PluginRef p : plugins) {
+      g.writeStartObject();
+      g.writeStringField("plugin_id", p.pluginId());
+      g.writeStringField("version", p.version());
+      g.writeStringField("importer_id", p.importerId());
+      g.writeStringField("jar", p.jar().orElse(null));
+      g.writeStringField("sha256", p.sha256().orElse(null));
+      g.writeEndObject();
+    }
+    g.writeEndArray();
+  }
+
+  private static void outputs(JsonGenerator g, List<OutputFile> outputs) throws IOException {
+    g.writeArrayFieldStart("outputs");
+    for (OutputFile f : outputs) {
+      g.writeStartObject();
+      g.writeStringField("name", f.name());
+      g.writeStringField("sha256", f.sha256());
+      g.writeNumberField("bytes", f.bytes());
+      g.writeEndObject();
+    }
+    g.writeEndArray();
   }
 }

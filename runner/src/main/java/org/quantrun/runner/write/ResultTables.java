@@ -115,13 +115,24 @@ public record ResultTables(
     Map<String, Integer> column = new HashMap<>();
     List<String> keyOrder = new ArrayList<>();
     List<String> unitOf = new ArrayList<>();
+    Map<String, String> analyteOf = new HashMap<>();
+    wideKeys(run, column, keyOrder, unitOf, analyteOf);
+    List<String> columns = wideColumns(keyOrder, unitOf, analyteOf);
+    Map<Integer, WideRow> rows = wideRows(run, column, keyOrder.size());
+    return new Table("results-wide", columns, wideCells(run.run().runId(), rows));
+  }
+
+  // the passes of the wide table as methods of their own: short methods are compiled quickly,
+  // and a loop is not compiled again and again inside a long method
+
+  private static void wideKeys(RunResult run, Map<String, Integer> column, List<String> keyOrder, List<String> unitOf,
+      Map<String, String> analyteOf) {
     for (CalibrationResult c : run.calibrations()) {
       if (c.reportedLine()) {
         int k = column.computeIfAbsent(c.analyteKey(), key -> add(keyOrder, unitOf, key));
         unitOf.set(k, c.unit());
       }
     }
-    Map<String, String> analyteOf = new HashMap<>();
     for (AnalyteResult r : run.results()) {
       if (r.reportedLine()) {
         int k = column.computeIfAbsent(r.analyteKey(), key -> add(keyOrder, unitOf, key));
@@ -130,6 +141,9 @@ public record ResultTables(
       }
     }
     run.calibrations().forEach(c -> analyteOf.putIfAbsent(c.analyteKey(), c.analyte()));
+  }
+
+  private static List<String> wideColumns(List<String> keyOrder, List<String> unitOf, Map<String, String> analyteOf) {
     Map<String, Integer> analyteCount = new HashMap<>();
     for (String k : keyOrder) {
       analyteCount.merge(analyteOf.getOrDefault(k, k), 1, Integer::sum);
@@ -138,18 +152,23 @@ public record ResultTables(
     for (int k = 0; k < keyOrder.size(); k++) {
       String key = keyOrder.get(k);
       String analyte = analyteOf.getOrDefault(key, key);
-      String unit = unitOf.get(k);
-      columns.add((analyteCount.get(analyte) == 1 ? analyte : key) + " [" + unit + "]");
+      columns.add((analyteCount.get(analyte) == 1 ? analyte : key) + " [" + unitOf.get(k) + "]");
     }
-    // one row per injection, in the order injections first appear; a later result of the same
-    // injection and line replaces an earlier one
+    return columns;
+  }
+
+  /**
+   * One row per injection, in the order injections first appear; a later result of the same
+   * injection and line replaces an earlier one.
+   */
+  private static Map<Integer, WideRow> wideRows(RunResult run, Map<String, Integer> column, int width) {
     Map<Integer, WideRow> rows = new LinkedHashMap<>();
     WideRow last = null;
     for (AnalyteResult r : run.results()) {
       if (last == null || last.first.position() != r.position()) {
         last = rows.get(r.position());
         if (last == null) {
-          last = new WideRow(r, new String[keyOrder.size()]);
+          last = new WideRow(r, new String[width]);
           rows.put(r.position(), last);
         }
       }
@@ -157,7 +176,10 @@ public record ResultTables(
         last.values[column.get(r.analyteKey())] = r.reported();
       }
     }
-    String runId = run.run().runId();
+    return rows;
+  }
+
+  private static List<List<Cell>> wideCells(String runId, Map<Integer, WideRow> rows) {
     List<List<Cell>> cells = new ArrayList<>(rows.size());
     for (WideRow w : rows.values()) {
       List<Cell> row = new ArrayList<>(WIDE_KEY_COLUMNS.size() + w.values.length);
@@ -170,7 +192,7 @@ public record ResultTables(
       }
       cells.add(row);
     }
-    return new Table("results-wide", columns, cells);
+    return cells;
   }
 
   /** An injection's row of the wide table: its first result, and the reported value per column. */

@@ -56,6 +56,22 @@ public final class RunJson {
     g.disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
     g.setPrettyPrinter(new RecordPerLine());
     g.writeStartObject();
+    head(g, run);
+    array(g, "injections", tables.injections());
+    calibrations(g, run, tables);
+    results(g, run, tables);
+    array(g, "results_wide", tables.resultsWide());
+    array(g, "qc", tables.qc());
+    array(g, "reruns", tables.reruns());
+    g.writeEndObject();
+    g.writeRaw('\n');
+    g.flush();
+  }
+
+  // each part in a method of its own: short methods are compiled quickly, and the loops of one
+  // part are not compiled again and again inside a long one
+
+  private static void head(JsonGenerator g, RunResult run) throws IOException {
     g.writeStringField("format", FORMAT);
     g.writeNumberField("format_version", FORMAT_VERSION);
     g.writeObjectFieldStart("run");
@@ -72,9 +88,9 @@ public final class RunJson {
     g.writeEndObject();
     g.writeStringField("verdict", run.verdict().token());
     strings(g, "findings", run.findings());
+  }
 
-    array(g, "injections", tables.injections());
-
+  private static void calibrations(JsonGenerator g, RunResult run, ResultTables tables) throws IOException {
     Table cal = tables.calibration();
     Table levels = tables.calibrationLevels();
     int key = levels.column("analyte_key");
@@ -87,19 +103,26 @@ public final class RunJson {
       fields(g, calKeys, cal.rows().get(i));
       strings(g, "reasons", c.reasons());
       strings(g, "trace", c.trace());
-      g.writeArrayFieldStart("levels");
-      for (List<Cell> row : levels.rows()) {
-        if (row.get(key).plain().equals(c.analyteKey())) {
-          g.writeStartObject();
-          fields(g, levelKeys, row);
-          g.writeEndObject();
-        }
-      }
-      g.writeEndArray();
+      levels(g, levels, key, levelKeys, c.analyteKey());
       g.writeEndObject();
     }
     g.writeEndArray();
+  }
 
+  private static void levels(JsonGenerator g, Table levels, int key, SerializableString[] levelKeys, String analyteKey)
+      throws IOException {
+    g.writeArrayFieldStart("levels");
+    for (List<Cell> row : levels.rows()) {
+      if (row.get(key).plain().equals(analyteKey)) {
+        g.writeStartObject();
+        fields(g, levelKeys, row);
+        g.writeEndObject();
+      }
+    }
+    g.writeEndArray();
+  }
+
+  private static void results(JsonGenerator g, RunResult run, ResultTables tables) throws IOException {
     Table results = tables.results();
     SerializableString[] resultKeys = keys(results);
     SharedArrays arrays = new SharedArrays();
@@ -115,12 +138,6 @@ public final class RunJson {
       g.writeEndObject();
     }
     g.writeEndArray();
-    array(g, "results_wide", tables.resultsWide());
-    array(g, "qc", tables.qc());
-    array(g, "reruns", tables.reruns());
-    g.writeEndObject();
-    g.writeRaw('\n');
-    g.flush();
   }
 
   /**
