@@ -161,43 +161,48 @@ public record Audit(
     g.writeEndArray();
   }
 
-  private static void inputs(JsonGenerator g, List<InputFile> inputs) throws IOException {
-    g.writeArrayFieldStart("inputs");
-    for (InputFile f : inputs) {
+  /** Writes the fields of one item of a list. */
+  @FunctionalInterface
+  private interface Fields<T> {
+    void write(JsonGenerator g, T item) throws IOException;
+  }
+
+  /** A list of items as an array of objects. */
+  private static <T> void objects(JsonGenerator g, String key, List<T> items, Fields<T> fields) throws IOException {
+    g.writeArrayFieldStart(key);
+    for (T item : items) {
       g.writeStartObject();
-      g.writeStringField("role", f.role());
-      g.writeStringField("name", f.name());
-      g.writeStringField("path", f.path());
-      g.writeStringField("sha256", f.sha256());
-      g.writeNumberField("bytes", f.bytes());
+      fields.write(g, item);
       g.writeEndObject();
     }
     g.writeEndArray();
+  }
+
+  private static void inputs(JsonGenerator g, List<InputFile> inputs) throws IOException {
+    objects(g, "inputs", inputs, (o, f) -> {
+      o.writeStringField("role", f.role());
+      o.writeStringField("name", f.name());
+      o.writeStringField("path", f.path());
+      o.writeStringField("sha256", f.sha256());
+      o.writeNumberField("bytes", f.bytes());
+    });
   }
 
   private static void plugins(JsonGenerator g, List<PluginRef> plugins) throws IOException {
-    g.writeArrayFieldStart("plugins");
-    for (PluginRef p : plugins) {
-      g.writeStartObject();
-      g.writeStringField("plugin_id", p.pluginId());
-      g.writeStringField("version", p.version());
-      g.writeStringField("importer_id", p.importerId());
-      g.writeStringField("jar", p.jar().orElse(null));
-      g.writeStringField("sha256", p.sha256().orElse(null));
-      g.writeEndObject();
-    }
-    g.writeEndArray();
+    objects(g, "plugins", plugins, (o, p) -> {
+      o.writeStringField("plugin_id", p.pluginId());
+      o.writeStringField("version", p.version());
+      o.writeStringField("importer_id", p.importerId());
+      o.writeStringField("jar", p.jar().orElse(null));
+      o.writeStringField("sha256", p.sha256().orElse(null));
+    });
   }
 
   private static void outputs(JsonGenerator g, List<OutputFile> outputs) throws IOException {
-    g.writeArrayFieldStart("outputs");
-    for (OutputFile f : outputs) {
-      g.writeStartObject();
-      g.writeStringField("name", f.name());
-      g.writeStringField("sha256", f.sha256());
-      g.writeNumberField("bytes", f.bytes());
-      g.writeEndObject();
-    }
-    g.writeEndArray();
+    objects(g, "outputs", outputs, (o, f) -> {
+      o.writeStringField("name", f.name());
+      o.writeStringField("sha256", f.sha256());
+      o.writeNumberField("bytes", f.bytes());
+    });
   }
 }
