@@ -24,6 +24,12 @@ import java.util.regex.Pattern;
  * <p>The columns of {@link ImportSettings#injectionColumns()} that the header has are read once per
  * injection into {@link Injection#columns()}: a blank cell agrees with any value; two rows of one
  * injection with different texts are an import error naming line, column and both values.
+ *
+ * <p>An importer whose format gives injection fields on lines of their own (context records)
+ * declares their names with {@link #contextColumns} and hands each row the fields of the record
+ * before it: they are columns of the run ({@link RawRun#columns()}) and are read per injection like
+ * header columns, the same name in the header and in a context record being one column that must
+ * give one value.
  */
 public final class TableRunAssembler {
 
@@ -63,6 +69,14 @@ public final class TableRunAssembler {
   private boolean anyExtra;
   private final String numberFormat;
   private List<String> exportColumns = List.of();
+  /** The names of the fields context records give ({@link #contextColumns}), as declared. */
+  private List<String> contextNames = List.of();
+  /** Whether a context record may give each per-injection column. */
+  private boolean[] ctxExtra;
+  /** The context fields of the last row's record, resolved per per-injection column. */
+  private Map<String, ContextField> lastContext;
+  private ContextField[] lastResolved;
+  private String[] lastResolvedNames;
 
   /**
    * An assembler for one read.
@@ -81,6 +95,7 @@ public final class TableRunAssembler {
     settings.columnAliases().forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(ColumnNames.normalise(n), c)));
     extraNames = settings.injectionColumns().toArray(new String[0]);
     extraNorms = new String[extraNames.length];
+    ctxExtra = new boolean[extraNames.length];
     for (int k = 0; k < extraNames.length; k++) {
       extraNorms[k] = ColumnNames.normalise(extraNames[k]);
     }
@@ -94,6 +109,40 @@ public final class TableRunAssembler {
       }
     }
     return -1;
+  }
+
+  /**
+   * Declares the fields the importer's context records can give (their names as the format writes
+   * them, such as the named groups of a context record pattern). Each is a column of the run:
+   * {@link RawRun#columns()} lists the header's columns, then these (a name the header has, compared
+   * as header names are, only once); and a per-injection column of the settings with one of these
+   * names is read from the context fields given to
+   * {@link #row(List, int, Optional, Optional, Optional, Optional, Map)}. Call before the header.
+   *
+   * @param names the field names
+   * @throws IllegalStateException after the header was found
+   */
+  public void contextColumns(List<String> names) {
+    if (hasHeader) {
+      throw new IllegalStateException("context columns after the header");
+    }
+    List<String> out = new ArrayList<>();
+    List<String> norms = new ArrayList<>();
+    boolean[] asked = new boolean[extraNames.length];
+    for (String n : names) {
+      String norm = ColumnNames.normalise(n);
+      if (norm.isEmpty() || norms.contains(norm)) {
+        continue;
+      }
+      norms.add(norm);
+      out.add(n.strip());
+      int k = extraIndex(norm);
+      if (k >= 0) {
+        asked[k] = true;
+      }
+    }
+    contextNames = List.copyOf(out);
+    ctxExtra = asked;
   }
 
   /**
@@ -265,13 +314,31 @@ public final class TableRunAssembler {
     for (int x : extra) {
       anyExtra |= x >= 0;
     }
-    exportColumns = List.copyOf(present);
+    for (boolean c : ctxExtra) {
+      anyExtra |= c;
+    }
+    exportColumns = List.copyOf(withContextNames(present));
     headerLine = line;
     headerNames = List.copyOf(names);
     headerColumns = columns.clone();
     replicateColumns.addAll(reps);
     wideColumns.addAll(wide);
     return true;
+  }
+
+  private List<String> withContextNames(List<String> present) {
+    if (contextNames.isEmpty()) {
+      return present;
+    }
+    List<String> out = new ArrayList<>(present);
+    List<String> norms = new ArrayList<>();
+    present.forEach(p -> norms.add(ColumnNames.normalise(p)));
+    for (String c : contextNames) {
+      if (!norms.contains(ColumnNames.normalise(c))) {
+        out.add(c);
+      }
+    }
+    return out;
   }
 
   private int firstDuplicateColumn;
@@ -436,6 +503,30 @@ public final class TableRunAssembler {
    */
   public void row(List<String> cells, int line, Optional<String> contextSequence, Optional<String> contextSampleId,
       Optional<String> contextType, Optional<String> contextTimestamp) throws ImportException {
+    row(cells, line, contextSequence, contextSampleId, contextType, contextTimestamp, Map.of());
+  }
+
+  /**
+   * Adds one data row whose injection fields may come from context, with the fields of its context
+   * record by name (the names {@link #contextColumns} declared; a name it did not declare is not
+   * read). A field named as a per-injection column of the settings gives that column's text for
+   * the row's injection, as a cell would: a blank field agrees with any value, and a text that
+   * differs from the one a header cell or another context record gave for the injection is an
+   * import error naming line, column and both values. Pass the same map for the rows of one
+   * record.
+   *
+   * @param cells the cells, in header order
+   * @param line the 1-based line
+   * @param contextSequence the sequence text from context, if any
+   * @param contextSampleId the sample id from context, if any
+   * @param contextType the sample type from context, if any
+   * @param contextTimestamp the time stamp from context, if any
+   * @param contextFields the fields of the row's context record by name; empty for none
+   * @throws ImportException for a bad row, naming line and column
+   */
+  public void row(List<String> cells, int line, Optional<String> contextSequence, Optional<String> contextSampleId,
+      Optional<String> contextType, Optional<String> contextTimestamp, Map<String, ContextField> contextFields)
+      throws ImportException {
     if (!hasHeader) {
       throw new IllegalStateException("row before header");
     }
@@ -488,9 +579,12 @@ public final class TableRunAssembler {
       if (anyExtra) {
         current.extras = new String[colExtra.length];
         current.extraPositions = new SourcePosition[colExtra.length];
+        current.extraFromContext = new boolean[colExtra.length];
+        current.blankContext = new SourcePosition[colExtra.length];
       }
     }
     if (anyExtra) {
+      contextCells(contextFields);
       extraCells(cells, line);
     }
     String rowUnit = colUnit >= 0 ? cell(cells, colUnit) : "";
@@ -510,19 +604,60 @@ public final class TableRunAssembler {
         continue;
       }
       String text = cell(cells, at).strip();
-      if (text.isEmpty()) {
+      if (!text.isEmpty()) {
+        take(k, text, new SourcePosition(line, column(at)), name(at), false);
+      }
+    }
+  }
+
+  /** Takes the per-injection columns' text from the fields of a row's context record. */
+  private void contextCells(Map<String, ContextField> fields) throws ImportException {
+    if (fields.isEmpty()) {
+      return;
+    }
+    if (fields != lastContext) {
+      ContextField[] resolved = new ContextField[extraNames.length];
+      String[] names = new String[extraNames.length];
+      for (Map.Entry<String, ContextField> e : fields.entrySet()) {
+        int k = extraIndex(ColumnNames.normalise(e.getKey()));
+        if (k >= 0 && ctxExtra[k] && resolved[k] == null) {
+          resolved[k] = e.getValue();
+          names[k] = e.getKey().strip();
+        }
+      }
+      lastContext = fields;
+      lastResolved = resolved;
+      lastResolvedNames = names;
+    }
+    for (int k = 0; k < lastResolved.length; k++) {
+      ContextField f = lastResolved[k];
+      if (f == null) {
         continue;
       }
-      String before = current.extras[k];
-      if (before == null) {
-        current.extras[k] = text;
-        current.extraPositions[k] = new SourcePosition(line, column(at));
-      } else if (!before.equals(text)) {
-        throw new ImportException(sourceName, new SourcePosition(line, column(at)), "column '" + name(at)
-            + "' of injection " + current.sequence + " '" + current.sampleId + "' is \"" + text + "\" here but \""
-            + before + "\" on line " + current.extraPositions[k].line()
-            + " (a column read per injection must give one value for the whole injection)");
+      String text = f.text().strip();
+      if (!text.isEmpty()) {
+        take(k, text, f.position(), lastResolvedNames[k], true);
+      } else if (current.blankContext[k] == null) {
+        current.blankContext[k] = f.position();
       }
+    }
+  }
+
+  /** Records the text of per-injection column k for the current injection, refusing a second, different text. */
+  private void take(int k, String text, SourcePosition at, String name, boolean fromContext) throws ImportException {
+    String before = current.extras[k];
+    if (before == null) {
+      current.extras[k] = text;
+      current.extraPositions[k] = at;
+      current.extraFromContext[k] = fromContext;
+    } else if (!before.equals(text)) {
+      String here = fromContext ? "\" in the context record here but " : "\" here but ";
+      String earlier = current.extraFromContext[k]
+          ? "the context record on line " + current.extraPositions[k].line() + " gives \"" + before + "\""
+          : "\"" + before + "\" on line " + current.extraPositions[k].line();
+      throw new ImportException(sourceName, at, "column '" + name + "' of injection " + current.sequence + " '"
+          + current.sampleId + "' is \"" + text + here + earlier
+          + " (a column read per injection must give one value for the whole injection)");
     }
   }
 
@@ -657,12 +792,20 @@ public final class TableRunAssembler {
     }
     Map<String, CellText> out = new LinkedHashMap<>();
     for (int k = 0; k < colExtra.length; k++) {
-      if (colExtra[k] < 0) {
+      if (colExtra[k] < 0 && !ctxExtra[k]) {
         continue;
       }
       String text = current.extras[k] == null ? "" : current.extras[k];
-      SourcePosition at = current.extraPositions[k] != null ? current.extraPositions[k]
-          : new SourcePosition(current.position.line(), column(colExtra[k]));
+      SourcePosition at;
+      if (current.extraPositions[k] != null) {
+        at = current.extraPositions[k];
+      } else if (colExtra[k] >= 0) {
+        at = new SourcePosition(current.position.line(), column(colExtra[k]));
+      } else if (current.blankContext[k] != null) {
+        at = current.blankContext[k];
+      } else {
+        at = SourcePosition.ofLine(current.position.line());
+      }
       out.put(extraNames[k], new CellText(text, values.number(text), numberFormat, at));
     }
     return out;
@@ -699,6 +842,9 @@ public final class TableRunAssembler {
     /** The text and position of each per-injection column, null until a row gives it. */
     String[] extras;
     SourcePosition[] extraPositions;
+    /** Whether each text came from a context record; where a context record left each blank. */
+    boolean[] extraFromContext;
+    SourcePosition[] blankContext;
 
     InjectionBuilder(int sequence, String sampleId, Optional<String> type, Optional<String> timestamp,
         SourcePosition position) {

@@ -5,14 +5,18 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.pf4j.Extension;
 import org.quantrun.core.importer.ColumnNames;
+import org.quantrun.core.importer.ContextField;
 import org.quantrun.core.importer.FixedField;
+import org.quantrun.core.importer.GroupNames;
 import org.quantrun.core.importer.ImportException;
 import org.quantrun.core.importer.ImportSettings;
 import org.quantrun.core.importer.RawRun;
@@ -26,7 +30,11 @@ import org.quantrun.core.importer.TextInput;
  * the first header line followed by an underline row (runs of {@code -} or {@code =}: each run is
  * a field, named by the header text above it). Context records (lines matching a
  * {@linkplain ImportSettings#contextPatterns() context pattern}) set the sequence, sample id, type
- * and time stamp for the data records after them; a {@linkplain ImportSettings#dataRecordPattern()
+ * and time stamp for the data records after them (named groups {@code sequence}, {@code sampleId},
+ * {@code sampleType}, {@code timestamp}); every named group of a context pattern, these four and any
+ * other, is also a column of the run, which a method can read per injection (its value for the
+ * records until the next context record, its position the context record's line and the group's
+ * column); a {@linkplain ImportSettings#dataRecordPattern()
  * data record pattern} selects the data lines; skip and end rules apply as for delimited files.
  * Repeats of the header and underline (a report with a block per injection) are skipped.
  */
@@ -88,6 +96,14 @@ public final class FixedWidthImporter implements RunImporter {
     TextInput text = TextInput.open(in, settings, sourceName);
     BufferedReader reader = new BufferedReader(text, 64 * 1024);
     TableRunAssembler table = new TableRunAssembler(sourceName, ID, settings);
+    List<List<String>> groups = new ArrayList<>();
+    List<String> contextNames = new ArrayList<>();
+    for (Pattern p : settings.contextPatterns()) {
+      List<String> g = GroupNames.of(p);
+      groups.add(g);
+      contextNames.addAll(g);
+    }
+    table.contextColumns(contextNames);
     Context ctx = new Context();
     int[] starts = new int[0];
     String headerText = null;
@@ -111,7 +127,7 @@ public final class FixedWidthImporter implements RunImporter {
         if (table.hasHeader() && settings.ends(line)) {
           break;
         }
-        if (context(settings, line, ctx)) {
+        if (context(settings, groups, line, lineNo, ctx)) {
           continue;
         }
         if (!table.hasHeader()) {
@@ -141,7 +157,8 @@ public final class FixedWidthImporter implements RunImporter {
         if (settings.dataRecordPattern().isPresent() && !settings.dataRecordPattern().get().matcher(line).find()) {
           continue;
         }
-        table.row(cells(line, starts, settings.fixedFields()), lineNo, ctx.sequence, ctx.sampleId, ctx.type, ctx.timestamp);
+        table.row(cells(line, starts, settings.fixedFields()), lineNo, ctx.sequence, ctx.sampleId, ctx.type, ctx.timestamp,
+            ctx.fields);
       }
     } catch (IOException | UncheckedIOException e) {
       throw text.problem(e, lineNo + 1);
@@ -152,18 +169,35 @@ public final class FixedWidthImporter implements RunImporter {
     return table.finish();
   }
 
-  private static boolean context(ImportSettings settings, String line, Context ctx) {
-    for (Pattern p : settings.contextPatterns()) {
-      Matcher m = p.matcher(line);
+  private static boolean context(ImportSettings settings, List<List<String>> groups, String line, int lineNo, Context ctx) {
+    List<Pattern> patterns = settings.contextPatterns();
+    for (int i = 0; i < patterns.size(); i++) {
+      Matcher m = patterns.get(i).matcher(line);
       if (m.find()) {
         ctx.sequence = group(m, "sequence");
         ctx.sampleId = group(m, "sampleId");
         ctx.type = group(m, "sampleType");
         ctx.timestamp = group(m, "timestamp");
+        ctx.fields = fields(m, groups.get(i), lineNo);
         return true;
       }
     }
     return false;
+  }
+
+  /** Every named group of a context record, by name: its text and where it was read. */
+  private static Map<String, ContextField> fields(Matcher m, List<String> names, int lineNo) {
+    if (names.isEmpty()) {
+      return Map.of();
+    }
+    Map<String, ContextField> out = new LinkedHashMap<>();
+    for (String name : names) {
+      String text = m.group(name);
+      out.put(name, text == null
+          ? new ContextField("", SourcePosition.ofLine(lineNo))
+          : new ContextField(text.strip(), new SourcePosition(lineNo, m.start(name) + 1)));
+    }
+    return out;
   }
 
   private static Optional<String> group(Matcher m, String name) {
@@ -211,5 +245,6 @@ public final class FixedWidthImporter implements RunImporter {
     Optional<String> sampleId = Optional.empty();
     Optional<String> type = Optional.empty();
     Optional<String> timestamp = Optional.empty();
+    Map<String, ContextField> fields = Map.of();
   }
 }

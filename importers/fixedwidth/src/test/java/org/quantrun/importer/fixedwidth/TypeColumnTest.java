@@ -99,6 +99,6 @@ class TypeColumnTest {
     RawRun run = read(REPORT.replace("Reading 1  Kind", "Reading 1  Sort"), m);
     ProcessingException e = assertThrows(ProcessingException.class, () -> RunProcessor.process(run, m, Optional.empty()));
     assertEquals("run-FK.txt: the method's identification.type-column names the column 'Kind', which the export does not"
-        + " have (its columns: 'Seq', 'Sample', 'Line', 'Reading 1', 'Sort')", e.getMessage());
+        + " have (its columns: 'Seq', 'Sample', 'Line', 'Reading 1', 'Sort', 'sequence', 'sampleType')", e.getMessage());
   }
 }
