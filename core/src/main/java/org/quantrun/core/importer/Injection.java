@@ -1,5 +1,7 @@
 package org.quantrun.core.importer;
 
+import java.util.Collections;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
@@ -63,7 +65,7 @@ public record Injection(
     Objects.requireNonNull(timestamp, "timestamp");
     lines = List.copyOf(lines);
     Objects.requireNonNull(position, "position");
-    columns = columns.isEmpty() ? Map.of() : java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(columns));
+    columns = columns.isEmpty() ? Map.of() : Collections.unmodifiableMap(new LinkedHashMap<>(columns));
     if (sampleId.isBlank()) {
       throw new IllegalArgumentException("sample id must not be blank");
     }

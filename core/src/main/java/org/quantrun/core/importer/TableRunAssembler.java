@@ -1,6 +1,7 @@
 package org.quantrun.core.importer;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -228,7 +229,7 @@ public final class TableRunAssembler {
     List<String> duplicates = new ArrayList<>();
     Map<String, Integer> wideKeys = new HashMap<>();
     int[] extra = new int[extraNames.length];
-    java.util.Arrays.fill(extra, -1);
+    Arrays.fill(extra, -1);
     List<String> present = new ArrayList<>(names.size());
     int known = 0;
     for (int i = 0; i < names.size(); i++) {

@@ -1,6 +1,7 @@
 package org.quantrun.core.importer;
 
 import java.util.Locale;
+import java.util.OptionalDouble;
 import java.util.Set;
 
 /**
@@ -81,13 +82,13 @@ public final class ValueReader {
    * @param raw the text as exported
    * @return the finite value, or empty when the text is blank or not a number in this format
    */
-  public java.util.OptionalDouble number(String raw) {
+  public OptionalDouble number(String raw) {
     String s = raw.strip();
     if (s.isEmpty()) {
-      return java.util.OptionalDouble.empty();
+      return OptionalDouble.empty();
     }
     double v = parse(s);
-    return Double.isNaN(v) ? java.util.OptionalDouble.empty() : java.util.OptionalDouble.of(v);
+    return Double.isNaN(v) ? OptionalDouble.empty() : OptionalDouble.of(v);
   }
 
   /**

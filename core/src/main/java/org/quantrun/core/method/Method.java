@@ -1,5 +1,6 @@
 package org.quantrun.core.method;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 
@@ -83,7 +84,7 @@ public record Method(
    * @return the column names, in that order
    */
   public List<String> injectionColumns() {
-    List<String> out = new java.util.ArrayList<>(3);
+    List<String> out = new ArrayList<>(3);
     identification.typeColumn().ifPresent(out::add);
     identification.levelColumn().ifPresent(out::add);
     dilution.factorColumn().ifPresent(out::add);

@@ -1,12 +1,15 @@
 package org.quantrun.core.processing;
 
 import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
+import java.util.OptionalDouble;
 import java.util.OptionalInt;
 import java.util.Set;
 import org.quantrun.core.importer.AnalyteLine;
@@ -125,7 +128,7 @@ public final class RunProcessor {
       return;
     }
     for (Classified c : injections) {
-      java.util.OptionalDouble f = InjectionColumns.factor(c.injection(), column.get());
+      OptionalDouble f = InjectionColumns.factor(c.injection(), column.get());
       if (!c.isPrepared() && f.isPresent() && f.getAsDouble() != 1) {
         findings.add("injection " + c.position() + " '" + c.sampleId() + "' (" + c.role().token() + ") has dilution factor "
             + Text.num(f.getAsDouble()) + " in the export's '" + column.get() + "' column; it was not applied, because "
@@ -152,7 +155,7 @@ public final class RunProcessor {
   }
 
   private static Set<Integer> indexes(List<Classified> injections) {
-    Set<Integer> set = new java.util.HashSet<>();
+    Set<Integer> set = new HashSet<>();
     injections.forEach(c -> set.add(c.index()));
     return set;
   }
@@ -206,7 +209,7 @@ public final class RunProcessor {
     List<QcCheck> checks = new ArrayList<>();
     isWorks.values().forEach(w -> checks.addAll(w.checks()));
     checks.addAll(qc.checks());
-    checks.sort(java.util.Comparator.comparingInt(QcCheck::position));
+    checks.sort(Comparator.comparingInt(QcCheck::position));
     return checks;
   }
 
