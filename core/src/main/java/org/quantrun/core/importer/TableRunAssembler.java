@@ -3,10 +3,13 @@ package org.quantrun.core.importer;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import java.util.Set;
+import java.util.TreeMap;
 import java.util.TreeSet;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -43,6 +46,8 @@ public final class TableRunAssembler {
   private final List<MetadataEntry> metadata = new ArrayList<>();
   private final List<Injection> injections = new ArrayList<>();
   private final Map<String, String> aliasToCanonical = new HashMap<>();
+  /** The normalised header names the settings give for canonical columns: they win over built-in ones. */
+  private final Set<String> settingsNames = new HashSet<>();
   private final Map<String, AnalyteLine> lineCache = new HashMap<>();
   /** Each unit text once: a large export repeats the same unit in every row. */
   private final Map<String, Optional<String>> units = new HashMap<>();
@@ -94,6 +99,7 @@ public final class TableRunAssembler {
     ColumnNames.DEFAULT_ALIASES.forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(n, c)));
     ColumnNames.ALL.forEach(c -> aliasToCanonical.put(ColumnNames.normalise(c), c));
     settings.columnAliases().forEach((c, names) -> names.forEach(n -> aliasToCanonical.put(ColumnNames.normalise(n), c)));
+    settings.columnAliases().values().forEach(names -> names.forEach(n -> settingsNames.add(ColumnNames.normalise(n))));
     extraNames = settings.injectionColumns().toArray(new String[0]);
     extraNorms = new String[extraNames.length];
     ctxExtra = new boolean[extraNames.length];
@@ -222,12 +228,13 @@ public final class TableRunAssembler {
    * @throws ImportException if it is the header but two columns give the same field
    */
   public boolean tryHeader(List<String> names, int[] columns, int line) throws ImportException {
-    firstDuplicateColumn = 0;
     Map<String, Integer> canon = new HashMap<>();
     List<Integer> reps = new ArrayList<>();
     List<WideColumn> wide = new ArrayList<>();
-    List<String> duplicates = new ArrayList<>();
+    // by the column of the second cell: the error names the first one in the line
+    TreeMap<Integer, String> duplicates = new TreeMap<>();
     Map<String, Integer> wideKeys = new HashMap<>();
+    Map<String, List<Integer>> candidates = new LinkedHashMap<>();
     int[] extra = new int[extraNames.length];
     Arrays.fill(extra, -1);
     List<String> present = new ArrayList<>(names.size());
@@ -242,7 +249,7 @@ public final class TableRunAssembler {
       int x = extraIndex(norm);
       if (x >= 0) {
         if (extra[x] >= 0) {
-          duplicates.add(duplicateText(names, columns, extra[x], i, "column '" + extraNames[x] + "'"));
+          duplicates.putIfAbsent(columns[i], duplicateText(names, columns, extra[x], i, "column '" + extraNames[x] + "'"));
         } else {
           extra[x] = i;
         }
@@ -250,10 +257,7 @@ public final class TableRunAssembler {
       String c = aliasToCanonical.get(norm);
       if (c != null && (settings.layout() == Layout.LONG || isKeyField(c))) {
         known++;
-        Integer before = canon.putIfAbsent(c, i);
-        if (before != null) {
-          duplicates.add(duplicateText(names, columns, before, i, c));
-        }
+        candidates.computeIfAbsent(c, k -> new ArrayList<>()).add(i);
         continue;
       }
       if (x >= 0) {
@@ -273,12 +277,13 @@ public final class TableRunAssembler {
           String key = w.analyteLine().label() + "|" + w.statText();
           Integer before = wideKeys.putIfAbsent(key, i);
           if (before != null) {
-            duplicates.add(duplicateText(names, columns, before, i, w.analyteLine().label()));
+            duplicates.putIfAbsent(columns[i], duplicateText(names, columns, before, i, w.analyteLine().label()));
           }
           wide.add(w);
         }
       }
     }
+    candidates.forEach((field, cells) -> choose(field, cells, names, columns, canon, duplicates));
     List<String> missing = missing(canon, reps, wide);
     if (!missing.isEmpty()) {
       int found = known;
@@ -291,7 +296,8 @@ public final class TableRunAssembler {
       return false;
     }
     if (!duplicates.isEmpty()) {
-      throw new ImportException(sourceName, new SourcePosition(line, firstDuplicateColumn), duplicates.get(0));
+      Map.Entry<Integer, String> first = duplicates.firstEntry();
+      throw new ImportException(sourceName, new SourcePosition(line, first.getKey()), first.getValue());
     }
     if (wide.stream().map(WideColumn::analyteLine).distinct().count() > settings.maxAnalyteLines()) {
       throw tooManyLines(line, 1);
@@ -342,7 +348,6 @@ public final class TableRunAssembler {
     return out;
   }
 
-  private int firstDuplicateColumn;
   private int colSample = -1;
   private int colSeq = -1;
   private int colType = -1;
@@ -366,12 +371,28 @@ public final class TableRunAssembler {
     return i == null ? -1 : i;
   }
 
-  private String duplicateText(List<String> names, int[] columns, int first, int second, String field) {
-    if (firstDuplicateColumn == 0) {
-      firstDuplicateColumn = columns[second];
-    }
+  private static String duplicateText(List<String> names, int[] columns, int first, int second, String field) {
     return "duplicate header: columns " + columns[first] + " (\"" + names.get(first).strip() + "\") and "
         + columns[second] + " (\"" + names.get(second).strip() + "\") both give " + field;
+  }
+
+  /**
+   * Chooses the header cell of a field among those whose names map to it: a name the settings give
+   * ({@link ImportSettings#columnAliases()}) before a built-in one; the others are then plain
+   * columns. Two cells of the same standing are a duplicate header.
+   */
+  private void choose(String field, List<Integer> cells, List<String> names, int[] columns, Map<String, Integer> canon,
+      Map<Integer, String> duplicates) {
+    List<Integer> best = cells.stream().filter(i -> settingsNames.contains(ColumnNames.normalise(names.get(i)))).toList();
+    if (best.isEmpty()) {
+      best = cells;
+    }
+    canon.put(field, best.get(0));
+    if (best.size() > 1) {
+      int second = best.get(1);
+      duplicates.putIfAbsent(columns[second], duplicateText(names, columns, best.get(0), second, field)
+          + " (the import profile's columns." + field + " can name the one to read)");
+    }
   }
 
   private static boolean isKeyField(String c) {

@@ -17,6 +17,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import org.quantrun.core.importer.ColumnNames;
 import org.quantrun.core.importer.ImportException;
 import org.quantrun.core.importer.ImportSettings;
 import org.quantrun.core.importer.RawRun;
@@ -288,6 +289,9 @@ public final class RunBatch {
     }
     // the columns the method reads per injection (a standard's level, a dilution factor)
     method.injectionColumns().forEach(b::injectionColumn);
+    // the column the method reads each injection's type from is the export's type column, chosen
+    // before another one a built-in name finds (such as "Type" beside "Sample Type")
+    method.identification().typeColumn().ifPresent(t -> b.alias(ColumnNames.SAMPLE_TYPE, List.of(t)));
     settings = b.build();
 
     Optional<PrepSheet> prep = Optional.empty();
@@ -414,7 +418,9 @@ public final class RunBatch {
       LOG.info(FILE_ONLY, "{}: {} refused: {}", req.command(), name, e.getMessage());
       return new Outcome(name, Main.EXIT_INPUT_ERROR, Optional.empty(), Optional.empty());
     } catch (RunPipeline.RunInputException e) {
-      progress.println(err, req.command() + ": " + name + ": " + e.getMessage());
+      // the core's messages begin with the export's name already
+      String message = e.getMessage().startsWith(name + ":") ? e.getMessage() : name + ": " + e.getMessage();
+      progress.println(err, req.command() + ": " + message);
       LOG.info(FILE_ONLY, "{}: {} refused: {}", req.command(), name, e.getMessage());
       return new Outcome(name, Main.EXIT_INPUT_ERROR, Optional.empty(), Optional.empty());
     } catch (IOException e) {

@@ -79,5 +79,40 @@ class InjectionColumnsCommandTest {
     assertTrue(r.err().contains("run-R2611A-long.csv: the method's dilution.factor-column names the column 'Dil', which the"
         + " export does not have (its columns: 'Seq', 'Sample ID', 'Type', 'Acquired', 'Element', 'Wavelength', 'Rep',"
         + " 'Intensity', 'Unit', 'Remark')"), r.err());
+    assertTrue(!r.err().contains("csv: run-R2611A-long.csv"), "the export is named once: " + r.err());
+  }
+
+  @Test
+  @DisplayName("the method's type column is the export's type column even when a built-in name finds another one")
+  void methodTypeColumnSettlesTwoTypeColumns() throws IOException {
+    List<String> lines = Files.readAllLines(Path.of(ProcessCommandTest.DEMO), StandardCharsets.UTF_8);
+    StringBuilder b = new StringBuilder();
+    for (int i = 0; i < lines.size(); i++) {
+      String l = lines.get(i);
+      if (i == 0) {
+        assertTrue(l.startsWith("Seq,Sample ID,Type,"), l);
+        b.append(l.replace("Seq,Sample ID,Type,", "Seq,Sample ID,Sample Type,")).append(",Type\n");
+      } else {
+        b.append(l).append(l.contains(",") ? ",ignored by the method\n" : "\n");
+      }
+    }
+    Path export = dir.resolve("run-R2611A-types.csv");
+    Files.writeString(export, b, StandardCharsets.UTF_8);
+    Path out = dir.resolve("out");
+    CommandRun refused = CommandRun.of("process", export.toString(), "--method", ProcessCommandTest.DEMO_METHOD, "--profile",
+        ProcessCommandTest.LONG_PROFILE, "--out", out.toString());
+    assertEquals(2, refused.exitCode(), refused.err());
+    assertTrue(refused.err().contains("duplicate header: columns 3 (\"Sample Type\") and 11 (\"Type\") both give sample_type"),
+        refused.err());
+
+    String demo = Files.readString(Path.of(ProcessCommandTest.DEMO_METHOD), StandardCharsets.UTF_8);
+    String typed = demo.replace("identification:\n  order: rules-first\n",
+        "identification:\n  order: rules-first\n  type-column: Sample Type\n  type-values: {BLANK: calibration-blank}\n");
+    assertTrue(typed.contains("type-column: Sample Type"), "the demo method's identification section is where it was");
+    Path m = dir.resolve("demo-typed.yaml");
+    Files.writeString(m, typed, StandardCharsets.UTF_8);
+    CommandRun r = CommandRun.of("process", export.toString(), "--method", m.toString(), "--profile",
+        ProcessCommandTest.LONG_PROFILE, "--out", out.toString());
+    assertTrue(r.exitCode() <= 1, r.err());
   }
 }

@@ -86,6 +86,37 @@ class DelimitedImporterTest extends ImporterContract {
     return new DelimitedImporter().read(new ByteArrayInputStream(text.getBytes(StandardCharsets.UTF_8)), s, "run.csv");
   }
 
+  // Two columns whose names both mean one field (common practice: exports often carry a "Sample
+  // Name" beside a "Sample ID", or a "Type" beside a "Sample Type").
+  static final String TWO_IDS = """
+      Seq,Sample ID,Sample Type,Element,Wavelength,Intensity,Sample Name,Type
+      1,CAL-BLK,BLANK,Cd,228.802,101.5,blank of day,X
+      2,W-17,SAMPLE,Cd,228.802,2201.0,well 17 north,Y
+      """;
+
+  @Test
+  @DisplayName("two header names for one field refuse the read, naming both columns and the profile key that settles it")
+  void twoNamesForOneFieldAreRefusedWithTheWayOut() {
+    ImportException e = assertThrows(ImportException.class, () -> read(TWO_IDS, ImportSettings.DEFAULT));
+    assertEquals("run.csv:1:7: duplicate header: columns 2 (\"Sample ID\") and 7 (\"Sample Name\") both give sample_id"
+        + " (the import profile's columns.sample_id can name the one to read)", e.getMessage());
+  }
+
+  @Test
+  @DisplayName("a header name the profile gives for a field wins over a built-in name; the other is a plain column")
+  void profileNameWinsOverBuiltInName() throws ImportException {
+    ImportSettings s = ImportSettings.DEFAULT.toBuilder().alias("sample_id", List.of("Sample Name"))
+        .alias("sample_type", List.of("Sample Type")).build();
+    RawRun run = read(TWO_IDS, s);
+    assertEquals(List.of("blank of day", "well 17 north"), run.injections().stream().map(Injection::sampleId).toList());
+    assertEquals(Optional.of("SAMPLE"), run.injections().get(1).sampleType());
+    assertTrue(run.hasColumn("Sample ID") && run.hasColumn("Type"), run.columns().toString());
+    // two names the profile gives, both in the header, are as ambiguous as two built-in ones
+    ImportSettings both = ImportSettings.DEFAULT.toBuilder().alias("sample_id", List.of("Sample Name", "Sample ID")).build();
+    ImportException e = assertThrows(ImportException.class, () -> read(TWO_IDS, both));
+    assertTrue(e.getMessage().startsWith("run.csv:1:7: duplicate header: columns 2 (\"Sample ID\") and 7"), e.getMessage());
+  }
+
   @Test
   @DisplayName("long layout groups rows into injections and analyte lines, keeping line and column of each reading")
   void longLayoutGroupsRows() throws ImportException {
