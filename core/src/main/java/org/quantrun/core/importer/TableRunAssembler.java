@@ -37,6 +37,8 @@ import java.util.regex.Pattern;
  */
 public final class TableRunAssembler {
 
+  /** A header name with a unit in brackets after it: the name, then the unit. */
+  private static final Pattern TRAILING_UNIT = Pattern.compile("(.*?\\S)\\s*[(\\[]\\s*([^()\\[\\]]*?)\\s*[)\\]]");
   private static final Pattern ANALYTE_AND_LINE = Pattern.compile("([A-Z][a-z]?)\\s*[ _]?\\s*(\\d.*)");
 
   private final String sourceName;
@@ -235,6 +237,8 @@ public final class TableRunAssembler {
     TreeMap<Integer, String> duplicates = new TreeMap<>();
     Map<String, Integer> wideKeys = new HashMap<>();
     Map<String, List<Integer>> candidates = new LinkedHashMap<>();
+    String[] matched = new String[names.size()];
+    Map<Integer, String> bracketUnits = new HashMap<>();
     int[] extra = new int[extraNames.length];
     Arrays.fill(extra, -1);
     List<String> present = new ArrayList<>(names.size());
@@ -255,6 +259,19 @@ public final class TableRunAssembler {
         }
       }
       String c = aliasToCanonical.get(norm);
+      matched[i] = norm;
+      if (c == null) {
+        // a name with its unit after it in brackets: "Intensity (cps)", "Signal [counts]"
+        Matcher u = TRAILING_UNIT.matcher(raw);
+        if (u.matches()) {
+          String base = ColumnNames.normalise(u.group(1));
+          c = aliasToCanonical.get(base);
+          if (c != null) {
+            matched[i] = base;
+            bracketUnits.put(i, u.group(2));
+          }
+        }
+      }
       if (c != null && (settings.layout() == Layout.LONG || isKeyField(c))) {
         known++;
         candidates.computeIfAbsent(c, k -> new ArrayList<>()).add(i);
@@ -283,7 +300,7 @@ public final class TableRunAssembler {
         }
       }
     }
-    candidates.forEach((field, cells) -> choose(field, cells, names, columns, canon, duplicates));
+    candidates.forEach((field, cells) -> choose(field, cells, names, matched, columns, canon, duplicates));
     List<String> missing = missing(canon, reps, wide);
     if (!missing.isEmpty()) {
       int found = known;
@@ -308,6 +325,14 @@ public final class TableRunAssembler {
     colType = index(canon, ColumnNames.SAMPLE_TYPE);
     colTime = index(canon, ColumnNames.TIMESTAMP);
     colUnit = index(canon, ColumnNames.UNIT);
+    // without a unit column, the unit a reading (or mean) column gives in brackets after its name
+    headerUnit = "";
+    for (String f : List.of(ColumnNames.READING, ColumnNames.MEAN)) {
+      Integer at = canon.get(f);
+      if (headerUnit.isEmpty() && at != null) {
+        headerUnit = bracketUnits.getOrDefault(at, "");
+      }
+    }
     colRemark = index(canon, ColumnNames.REMARK);
     colRep = index(canon, ColumnNames.REPLICATE);
     colAnalyte = index(canon, ColumnNames.ANALYTE);
@@ -353,6 +378,8 @@ public final class TableRunAssembler {
   private int colType = -1;
   private int colTime = -1;
   private int colUnit = -1;
+  /** The unit in brackets after the reading column's name, for an export without a unit column. */
+  private String headerUnit = "";
   private int colRemark = -1;
   private int colRep = -1;
   private int colAnalyte = -1;
@@ -381,9 +408,9 @@ public final class TableRunAssembler {
    * ({@link ImportSettings#columnAliases()}) before a built-in one; the others are then plain
    * columns. Two cells of the same standing are a duplicate header.
    */
-  private void choose(String field, List<Integer> cells, List<String> names, int[] columns, Map<String, Integer> canon,
-      Map<Integer, String> duplicates) {
-    List<Integer> best = cells.stream().filter(i -> settingsNames.contains(ColumnNames.normalise(names.get(i)))).toList();
+  private void choose(String field, List<Integer> cells, List<String> names, String[] matched, int[] columns,
+      Map<String, Integer> canon, Map<Integer, String> duplicates) {
+    List<Integer> best = cells.stream().filter(i -> settingsNames.contains(matched[i])).toList();
     if (best.isEmpty()) {
       best = cells;
     }
@@ -609,7 +636,7 @@ public final class TableRunAssembler {
       contextCells(contextFields);
       extraCells(cells, line);
     }
-    String rowUnit = colUnit >= 0 ? cell(cells, colUnit) : "";
+    String rowUnit = colUnit >= 0 ? cell(cells, colUnit) : headerUnit;
     String remark = colRemark >= 0 ? cell(cells, colRemark) : "";
     if (settings.layout() == Layout.LONG) {
       longRow(cells, line, rowUnit, remark);

@@ -86,8 +86,10 @@ public final class DelimitedImporter implements RunImporter {
     TextInput text = TextInput.open(in, settings, sourceName);
     BufferedReader reader = new BufferedReader(text, SNIFF_CHARS + 1024);
     char delimiter;
+    String head;
     try {
-      delimiter = settings.delimiter().isPresent() ? settings.delimiter().get() : sniff(reader, settings, sourceName);
+      head = head(reader, sourceName);
+      delimiter = settings.delimiter().isPresent() ? settings.delimiter().get() : sniff(head, settings);
     } catch (IOException e) {
       throw text.problem(e, text.line());
     }
@@ -120,7 +122,7 @@ public final class DelimitedImporter implements RunImporter {
         List<String> cells = java.util.Arrays.asList(record.values());
         if (!table.hasHeader()) {
           if (++searched > settings.headerSearchLines()) {
-            throw table.noHeaderError();
+            throw noHeader(table, head, delimiter, settings);
           }
           if (!table.tryHeader(cells, columns(cells.size()), line)) {
             table.metadataLine(cells, line);
@@ -144,6 +146,9 @@ public final class DelimitedImporter implements RunImporter {
     if (!table.hasHeader() && lineBefore == 0) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the file is empty");
     }
+    if (!table.hasHeader()) {
+      throw noHeader(table, head, delimiter, settings);
+    }
     return table.finish();
   }
 
@@ -162,8 +167,8 @@ public final class DelimitedImporter implements RunImporter {
     return new ImportException(p.sourceName(), p.position(), plain, e);
   }
 
-  private static char sniff(BufferedReader reader, ImportSettings settings, String sourceName)
-      throws IOException, ImportException {
+  /** The first characters of the text, for the delimiter; the reader is reset to where it was. */
+  private static String head(BufferedReader reader, String sourceName) throws IOException, ImportException {
     reader.mark(SNIFF_CHARS);
     char[] buf = new char[SNIFF_CHARS];
     int n = 0;
@@ -176,9 +181,34 @@ public final class DelimitedImporter implements RunImporter {
     if (head.isBlank()) {
       throw new ImportException(sourceName, SourcePosition.UNKNOWN, "the file is empty");
     }
-    return DelimiterSniffer.sniff(head, n == buf.length, settings.quote(), settings.decimalSeparator() != ',')
-        .map(DelimiterSniffer.Result::delimiter)
-        .orElse(settings.decimalSeparator() == ',' ? ';' : ',');
+    return head;
+  }
+
+  private static Optional<Character> sniffed(String head, ImportSettings settings) {
+    return DelimiterSniffer.sniff(head, head.length() == SNIFF_CHARS, settings.quote(), settings.decimalSeparator() != ',')
+        .map(DelimiterSniffer.Result::delimiter);
+  }
+
+  private static char sniff(String head, ImportSettings settings) {
+    return sniffed(head, settings).orElse(settings.decimalSeparator() == ',' ? ';' : ',');
+  }
+
+  /**
+   * The error for a text without a header; when the profile fixes a delimiter that the lines do
+   * not look separated by, it says which one they look separated by.
+   */
+  private static ImportException noHeader(TableRunAssembler table, String head, char delimiter, ImportSettings settings) {
+    ImportException e = table.noHeaderError();
+    if (settings.delimiter().isEmpty()) {
+      return e;
+    }
+    Optional<Character> seen = sniffed(head, settings);
+    if (seen.isEmpty() || seen.get() == delimiter) {
+      return e;
+    }
+    return new ImportException(e.sourceName(), e.position(), e.problem() + "; the import profile sets the delimiter "
+        + DelimiterSniffer.describe(delimiter) + ", but the lines look separated by " + DelimiterSniffer.describe(seen.get())
+        + " (delimiter: auto detects it)", e);
   }
 
   private static int[] columns(int n) {

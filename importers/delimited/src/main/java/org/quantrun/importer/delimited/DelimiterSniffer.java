@@ -19,6 +19,16 @@ final class DelimiterSniffer {
   private DelimiterSniffer() {}
 
   /**
+   * A delimiter in words for messages.
+   *
+   * @param c the delimiter
+   * @return {@code tab}, or the character in quotes
+   */
+  static String describe(char c) {
+    return c == '\t' ? "tab" : "'" + c + "'";
+  }
+
+  /**
    * @param text the first part of the text
    * @param truncated whether the text was cut (its last line is then ignored)
    * @param quote the quote character

@@ -1,5 +1,6 @@
 package org.quantrun.importer.delimited;
 
+import static org.junit.jupiter.api.Assertions.assertDoesNotThrow;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -115,6 +116,33 @@ class DelimitedImporterTest extends ImporterContract {
     ImportSettings both = ImportSettings.DEFAULT.toBuilder().alias("sample_id", List.of("Sample Name", "Sample ID")).build();
     ImportException e = assertThrows(ImportException.class, () -> read(TWO_IDS, both));
     assertTrue(e.getMessage().startsWith("run.csv:1:7: duplicate header: columns 2 (\"Sample ID\") and 7"), e.getMessage());
+  }
+
+  @Test
+  @DisplayName("a header name with its unit in brackets after it is the column of that name, and gives the unit")
+  void headerNameWithUnitInBrackets() throws ImportException {
+    // common practice: many exports write the unit after the column name, "Intensity (cps)"
+    String text = "Sample ID;Element;Wavelength (nm);Intensity (cps)\nA;Cd;228.802;1.5E+03\nB;Cd;228.802;20\n";
+    RawRun run = read(text, ImportSettings.DEFAULT);
+    LineReadings a = run.injections().get(0).lines().get(0);
+    assertEquals(AnalyteLine.of("Cd", "228.802"), a.analyteLine());
+    assertReading(a.replicates().get(0), 1500.0);
+    assertEquals(Optional.of("cps"), a.unit());
+    // a unit column wins over the unit in brackets
+    RawRun withUnit = read("Sample ID,Element,Signal [counts],Unit\nA,Cd 228.802,7,cps\n", ImportSettings.DEFAULT);
+    assertEquals(Optional.of("cps"), withUnit.injections().get(0).lines().get(0).unit());
+  }
+
+  @Test
+  @DisplayName("with the profile's delimiter wrong for the file, the missing header error names the delimiter the lines show")
+  void wrongFixedDelimiterIsNamed() {
+    ImportSettings comma = ImportSettings.DEFAULT.toBuilder().delimiter(',').build();
+    ImportException e = assertThrows(ImportException.class, () -> read(LONG.replace(',', ';'), comma));
+    assertTrue(e.getMessage().startsWith("run.csv: no header line with the required columns found"), e.getMessage());
+    assertTrue(e.getMessage().endsWith("; the import profile sets the delimiter ',', but the lines look separated by ';'"
+        + " (delimiter: auto detects it)"), e.getMessage());
+    // the same file with the delimiter detected reads
+    assertDoesNotThrow(() -> read(LONG.replace(',', ';'), ImportSettings.DEFAULT));
   }
 
   @Test
