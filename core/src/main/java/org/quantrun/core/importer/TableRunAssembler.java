@@ -57,6 +57,8 @@ public final class TableRunAssembler {
   private boolean hasHeader;
   private int headerLine;
   private List<String> headerNames = List.of();
+  /** The header's cells as compared with a row that may repeat it (stripped, without a byte-order mark). */
+  private String[] headerTexts = new String[0];
   private int[] headerColumns = new int[0];
   private final List<Integer> replicateColumns = new ArrayList<>();
   private final List<WideColumn> wideColumns = new ArrayList<>();
@@ -352,6 +354,7 @@ public final class TableRunAssembler {
     exportColumns = List.copyOf(withContextNames(present));
     headerLine = line;
     headerNames = List.copyOf(names);
+    headerTexts = names.stream().map(n -> n == null ? "" : n.replace("\uFEFF", "").strip()).toArray(String[]::new);
     headerColumns = columns.clone();
     replicateColumns.addAll(reps);
     wideColumns.addAll(wide);
@@ -586,7 +589,7 @@ public final class TableRunAssembler {
         break;
       }
     }
-    if (blank) {
+    if (blank || repeatsHeader(cells)) {
       return;
     }
     String sampleId = colSample >= 0 ? cell(cells, colSample).strip() : contextSampleId.orElse("").strip();
@@ -643,6 +646,24 @@ public final class TableRunAssembler {
     } else {
       wideRow(cells, line, rowUnit, remark);
     }
+  }
+
+  /**
+   * Whether a row is the header again, as exports printed page by page repeat it: every cell the
+   * header's text (spaces around ignored), a cell past the header blank.
+   */
+  private boolean repeatsHeader(List<String> cells) {
+    int probe = colSample >= 0 ? colSample : 0;
+    if (probe >= headerTexts.length || !cell(cells, probe).strip().equals(headerTexts[probe])) {
+      return false;
+    }
+    for (int i = 0; i < Math.max(cells.size(), headerTexts.length); i++) {
+      String c = cell(cells, i).strip();
+      if (!c.equals(i < headerTexts.length ? headerTexts[i] : "")) {
+        return false;
+      }
+    }
+    return true;
   }
 
   /** Takes the per-injection columns' text from a row: once per injection, the same on every row that gives it. */

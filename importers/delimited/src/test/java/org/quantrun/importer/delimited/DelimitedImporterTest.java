@@ -134,6 +134,22 @@ class DelimitedImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("the header repeated further down (an export printed page by page) is skipped; a row that only starts like it is data")
+  void repeatedHeaderIsSkipped() throws ImportException {
+    // common practice: exports printed or saved page by page repeat the header on every page
+    String header = LONG.lines().findFirst().orElseThrow();
+    String paged = LONG.replace("2,STD-1,Cd,228.802,1,", header + "\n2,STD-1,Cd,228.802,1,");
+    assertEquals(LONG.lines().count() + 1, paged.lines().count());
+    RawRun run = read(paged, ImportSettings.DEFAULT);
+    RawRun plain = read(LONG, ImportSettings.DEFAULT);
+    assertEquals(plain.injections().stream().map(i -> i.sampleId() + i.lines().size()).toList(),
+        run.injections().stream().map(i -> i.sampleId() + i.lines().size()).toList());
+    String almost = LONG.replace("2,STD-1,Cd,228.802,1,", "Seq,Sample ID,Element,Wavelength,Rep,Intensity,cps\n2,STD-1,Cd,228.802,1,");
+    ImportException e = assertThrows(ImportException.class, () -> read(almost, ImportSettings.DEFAULT));
+    assertTrue(e.getMessage().startsWith("run.csv:5:1: sequence \"Seq\" is not a whole number"), e.getMessage());
+  }
+
+  @Test
   @DisplayName("with the profile's delimiter wrong for the file, the missing header error names the delimiter the lines show")
   void wrongFixedDelimiterIsNamed() {
     ImportSettings comma = ImportSettings.DEFAULT.toBuilder().delimiter(',').build();
