@@ -34,10 +34,11 @@ public final class ImportSettings {
   /**
    * Default wide-layout header pattern: an element symbol, an optional line or mass, an optional
    * unit in brackets and an optional statistic ({@code mean}, {@code sd}, {@code rsd}, {@code rep 2}),
-   * e.g. {@code Cd 228.802 [cps]}, {@code Pb208 mean}.
+   * e.g. {@code Cd 228.802 [cps]}, {@code Pb208 mean}; with a decimal comma {@code Cd 228,802 [cps]}
+   * (read as line {@code 228.802}).
    */
   public static final Pattern DEFAULT_WIDE_PATTERN = Pattern.compile(
-      "(?<analyte>[A-Z][a-z]?)[ _]?(?<line>\\d+(?:\\.\\d+)?)?(?:\\s*[\\[(](?<unit>[^\\])]+)[\\])])?"
+      "(?<analyte>[A-Z][a-z]?)[ _]?(?<line>\\d+(?:[.,]\\d+)?)?(?:\\s*[\\[(](?<unit>[^\\])]+)[\\])])?"
           + "(?:[ _]+(?<stat>(?i:mean|sd|rsd|rep ?\\d+)))?");
 
   /** Default pattern for several replicate columns in one long-layout row ({@code Rep 1}, {@code Reading_2}). */

@@ -39,6 +39,7 @@ public final class TableRunAssembler {
 
   /** A header name with a unit in brackets after it: the name, then the unit. */
   private static final Pattern TRAILING_UNIT = Pattern.compile("(.*?\\S)\\s*[(\\[]\\s*([^()\\[\\]]*?)\\s*[)\\]]");
+  private static final Pattern DECIMAL_COMMA_LINE = Pattern.compile("\\d+,\\d+");
   private static final Pattern ANALYTE_AND_LINE = Pattern.compile("([A-Z][a-z]?)\\s*[ _]?\\s*(\\d.*)");
 
   private final String sourceName;
@@ -837,7 +838,10 @@ public final class TableRunAssembler {
     String k = analyte + '\u0001' + line;
     AnalyteLine al = lineCache.get(k);
     if (al == null) {
-      al = AnalyteLine.of(analyte, line);
+      // a wavelength written with the export's decimal comma is the line a method writes with a point
+      String l = settings.decimalSeparator() == ',' && DECIMAL_COMMA_LINE.matcher(line.strip()).matches()
+          ? line.strip().replace(',', '.') : line;
+      al = AnalyteLine.of(analyte, l);
       lineCache.put(k, al);
     }
     return al;

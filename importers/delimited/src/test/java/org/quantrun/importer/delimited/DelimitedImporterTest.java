@@ -150,6 +150,24 @@ class DelimitedImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("with a decimal comma, a wavelength written 228,802 is line 228.802, the way a method writes it")
+  void decimalCommaWavelengthIsTheLine() throws ImportException {
+    // common practice: exports of labs that write decimal commas write wavelengths the same way
+    ImportSettings eu = ImportSettings.DEFAULT.toBuilder().delimiter(';').decimalSeparator(',').build();
+    RawRun longRun = read("Sample ID;Element;Wavelength;Intensity\nA;Cd;228,802;1,5\nA;Cd;111;2\n", eu);
+    assertEquals(List.of(AnalyteLine.of("Cd", "228.802"), AnalyteLine.of("Cd", "111")),
+        longRun.injections().get(0).lines().stream().map(LineReadings::analyteLine).toList());
+    assertReading(longRun.injections().get(0).lines().get(0).replicates().get(0), 1.5);
+    RawRun wide = read("Sample;Cd 228,802 [cps];Pb 220,353 [cps]\nA;10,5;20\n", eu.toBuilder().layout(Layout.WIDE).build());
+    assertEquals(List.of(AnalyteLine.of("Cd", "228.802"), AnalyteLine.of("Pb", "220.353")),
+        wide.injections().get(0).lines().stream().map(LineReadings::analyteLine).toList());
+    // with a decimal point the text stays as written
+    RawRun point = read("Sample ID;Element;Wavelength;Intensity\nA;Cd;228,802;1.5\n", ImportSettings.DEFAULT.toBuilder()
+        .delimiter(';').build());
+    assertEquals(AnalyteLine.of("Cd", "228,802"), point.injections().get(0).lines().get(0).analyteLine());
+  }
+
+  @Test
   @DisplayName("with the profile's delimiter wrong for the file, the missing header error names the delimiter the lines show")
   void wrongFixedDelimiterIsNamed() {
     ImportSettings comma = ImportSettings.DEFAULT.toBuilder().delimiter(',').build();
