@@ -69,6 +69,7 @@ public final class RunProcessor {
     List<Classified> injections = InjectionClassifier.classify(run, method);
     List<String> findings = new ArrayList<>();
     unappliedFactors(method, injections, findings);
+    repeatedPositions(injections, findings);
     SignalTable table = new SignalTable(run, injections);
     Map<String, InternalStandardWork> isWorks = internalStandards(method, injections, table, findings);
 
@@ -135,6 +136,27 @@ public final class RunProcessor {
             + "calibration solutions and checks are measured as made");
       }
     }
+  }
+
+  /**
+   * A finding for each sequence number the export gives to more than one injection (a vial
+   * position measured again, two sequences in one file): the rows of their results share that
+   * position, so a LIMS keyed by it must tell them apart by sample ID and time.
+   */
+  static void repeatedPositions(List<Classified> injections, List<String> findings) {
+    Map<Integer, List<Classified>> byPosition = new LinkedHashMap<>();
+    for (Classified c : injections) {
+      byPosition.computeIfAbsent(c.position(), k -> new ArrayList<>(1)).add(c);
+    }
+    byPosition.forEach((position, same) -> {
+      if (same.size() > 1) {
+        List<String> where = same.stream().map(c -> "'" + c.sampleId() + "'"
+            + (c.injection().position().line() > 0 ? " at line " + c.injection().position().line() : "")).toList();
+        findings.add("the export gives sequence number " + position + " to " + same.size() + " injections ("
+            + String.join(", ", where) + "): their results share position " + position
+            + "; check the export's sequence column");
+      }
+    });
   }
 
   /** The work of every internal standard of the method, by name. */

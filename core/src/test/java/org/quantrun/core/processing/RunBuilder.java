@@ -23,6 +23,7 @@ final class RunBuilder {
   private List<String> columns = List.of();
   private final java.util.Map<String, org.quantrun.core.importer.CellText> cells = new java.util.LinkedHashMap<>();
   private Optional<String> type = Optional.empty();
+  private int nextSequence;
 
   RunBuilder(String source) {
     this.source = source;
@@ -58,6 +59,12 @@ final class RunBuilder {
     return this;
   }
 
+  /** The sequence number the export gives the next injection (else its place in the run). */
+  RunBuilder sequence(int n) {
+    nextSequence = n;
+    return this;
+  }
+
   /** An injection whose lines are given as "Analyte line" followed by its readings. */
   RunBuilder inject(String sampleId, Object... lineThenReadings) {
     List<LineReadings> lines = new ArrayList<>();
@@ -80,8 +87,9 @@ final class RunBuilder {
         cell(c, "");
       }
     }
-    injections.add(new Injection(injections.size() + 1, sampleId, type, Optional.empty(), lines,
-        new SourcePosition(first, 1), cells));
+    injections.add(new Injection(nextSequence > 0 ? nextSequence : injections.size() + 1, sampleId, type, Optional.empty(),
+        lines, new SourcePosition(first, 1), cells));
+    nextSequence = 0;
     cells.clear();
     type = Optional.empty();
     return this;
