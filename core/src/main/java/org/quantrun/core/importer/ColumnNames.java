@@ -75,7 +75,8 @@ public final class ColumnNames {
    * Normalises a header text for comparison.
    *
    * @param header the header text
-   * @return lower case, trimmed, separators collapsed to single spaces
+   * @return lower case, trimmed, separators collapsed to single spaces, the words of a name in
+   *     camel case apart ({@code SampleID} is {@code sample id})
    */
   public static String normalise(String header) {
     StringBuilder sb = new StringBuilder(header.length());
@@ -89,7 +90,7 @@ public final class ColumnNames {
           || c == '[' || c == ']' || c == ':' || c == '#') {
         space = sb.length() > 0;
       } else {
-        if (space) {
+        if (space || (sb.length() > 0 && wordStart(header, i))) {
           sb.append(' ');
           space = false;
         }
@@ -97,5 +98,21 @@ public final class ColumnNames {
       }
     }
     return sb.toString().toLowerCase(Locale.ROOT);
+  }
+
+  /**
+   * Whether the capital at {@code i} starts a word of a name written in camel case: after a small
+   * letter ({@code sampleId}, {@code DateTime}), or ending a run of capitals before a small letter
+   * ({@code IDNumber}).
+   */
+  private static boolean wordStart(String s, int i) {
+    if (i == 0 || !Character.isUpperCase(s.charAt(i))) {
+      return false;
+    }
+    char before = s.charAt(i - 1);
+    if (Character.isLowerCase(before)) {
+      return true;
+    }
+    return Character.isUpperCase(before) && i + 1 < s.length() && Character.isLowerCase(s.charAt(i + 1));
   }
 }

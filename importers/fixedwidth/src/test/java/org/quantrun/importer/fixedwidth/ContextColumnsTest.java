@@ -141,6 +141,16 @@ class ContextColumnsTest {
   }
 
   @Test
+  @DisplayName("a method naming the type column 'Sample Type' reads the group 'sampleType': camel-case words count apart")
+  void spacedNameMatchesCamelCaseGroup() throws ImportException {
+    Method m = method("Sample Type", "");
+    RunResult res = RunProcessor.process(read(report("Type", "", ""), m, TYPE_RECORD), m, Optional.empty());
+    assertEquals(SampleRole.ICV, record(res, "second").role());
+    assertEquals(SampleRole.CCV, record(res, "fourth").role());
+    assertEquals("type column 'SMP'", record(res, "third").identifiedBy());
+  }
+
+  @Test
   @DisplayName("a factor from a context group multiplies the result; a bad one is refused at the record's line and column")
   void factorFromContextGroup() throws ImportException {
     Method m = method("kind", "dilution: {factor-column: dil}");
