@@ -757,6 +757,9 @@ public final class TableRunAssembler {
       lb.replicates.add(values.read(cell(cells, r), name(r), line, column(r)));
     }
     if (colReading >= 0) {
+      if (colRep >= 0) {
+        replicateOnce(lb, cell(cells, colRep).strip(), line);
+      }
       lb.replicates.add(values.read(cell(cells, colReading), name(colReading), line, column(colReading)));
     }
     if (colMean >= 0 && lb.mean.isEmpty() && !cell(cells, colMean).isBlank()) {
@@ -766,6 +769,30 @@ public final class TableRunAssembler {
       lb.sd = Optional.of(values.read(cell(cells, colSd), name(colSd), line, column(colSd)));
     }
     lb.add(unit, remark, units);
+  }
+
+  /**
+   * Refuses a replicate number given twice for one analyte line of an injection (a row exported
+   * twice would count its reading twice in the mean).
+   */
+  private void replicateOnce(LineBuilder lb, String rep, int line) throws ImportException {
+    if (rep.isEmpty()) {
+      return;
+    }
+    for (int k = 0; k < lb.repCount; k++) {
+      if (lb.repTexts[k].equals(rep)) {
+        throw new ImportException(sourceName, new SourcePosition(line, column(colRep)), "replicate " + rep + " of "
+            + lb.analyteLine.label() + " is given twice for injection " + current.sequence + " '" + current.sampleId
+            + "' (lines " + lb.repLines[k] + " and " + line + ")"
+            + (colSeq < 0 ? "; without a sequence column, the rows of one sample up to the next sample are one injection" : ""));
+      }
+    }
+    if (lb.repCount == lb.repTexts.length) {
+      lb.repTexts = Arrays.copyOf(lb.repTexts, lb.repCount * 2 + 2);
+      lb.repLines = Arrays.copyOf(lb.repLines, lb.repTexts.length);
+    }
+    lb.repTexts[lb.repCount] = rep;
+    lb.repLines[lb.repCount++] = line;
   }
 
   private void wideRow(List<String> cells, int line, String unit, String remark) throws ImportException {
@@ -965,6 +992,10 @@ public final class TableRunAssembler {
     Optional<Reading> sd = Optional.empty();
     Optional<String> unit = Optional.empty();
     List<String> remarks = List.of();
+    /** The replicate numbers the rows gave, as written, and their lines. */
+    String[] repTexts = new String[0];
+    int[] repLines = new int[0];
+    int repCount;
 
     LineBuilder(AnalyteLine analyteLine, SourcePosition position) {
       this.analyteLine = analyteLine;

@@ -168,6 +168,22 @@ class DelimitedImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("a replicate number given twice for one line of an injection is refused, naming both lines")
+  void replicateGivenTwiceIsRefused() {
+    // common practice: a row exported twice would count its reading twice in the mean
+    String twice = LONG.replace("1,CAL-BLK,Cd,228.802,2,99.5,cps\n", "1,CAL-BLK,Cd,228.802,1,101.5,cps\n");
+    ImportException e = assertThrows(ImportException.class, () -> read(twice, ImportSettings.DEFAULT));
+    assertEquals("run.csv:3:5: replicate 1 of Cd 228.802 is given twice for injection 1 'CAL-BLK' (lines 2 and 3)",
+        e.getMessage());
+    String noSeq = "Sample ID,Element,Rep,Intensity\nA,Cd,1,5\nA,Cd,2,6\nA,Cd,1,7\n";
+    ImportException n = assertThrows(ImportException.class, () -> read(noSeq, ImportSettings.DEFAULT));
+    assertTrue(n.getMessage().startsWith("run.csv:4:3: replicate 1 of Cd is given twice for injection 1 'A' (lines 2 and 4);"
+        + " without a sequence column"), n.getMessage());
+    // the same replicate number on two lines of one injection is no repeat
+    assertDoesNotThrow(() -> read(LONG, ImportSettings.DEFAULT));
+  }
+
+  @Test
   @DisplayName("with the profile's delimiter wrong for the file, the missing header error names the delimiter the lines show")
   void wrongFixedDelimiterIsNamed() {
     ImportSettings comma = ImportSettings.DEFAULT.toBuilder().delimiter(',').build();
