@@ -37,8 +37,8 @@ import picocli.CommandLine.TypeConversionException;
     name = "calibrate",
     mixinStandardHelpOptions = true,
     description = {
-      "Fits a calibration curve to the points of a CSV file (header x,y and optionally sd)",
-      "and reads concentrations off it for the signals given with --predict."
+      "Fits a calibration curve to the points of a CSV file (header x,y and optionally sd) and reads "
+          + "concentrations off it for the signals given with --predict."
     })
 public final class CalibrateCommand implements Callable<Integer> {
 

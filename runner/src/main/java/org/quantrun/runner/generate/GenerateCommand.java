@@ -35,9 +35,9 @@ import picocli.CommandLine.Spec;
     name = "generate",
     mixinStandardHelpOptions = true,
     description = {
-      "Writes a synthetic run with known true concentrations: an export in one of the bundled",
-      "dialects, its method file and import profile, a prep sheet (soil) and the truth table.",
-      "The same options and seed give the same files, byte for byte."
+      "Writes a synthetic run with known true concentrations: an export in one of the bundled dialects, its "
+          + "method file and import profile, a prep sheet (soil) and the truth table. The same options and seed "
+          + "give the same files, byte for byte."
     })
 public final class GenerateCommand implements Callable<Integer> {
   @Spec CommandSpec spec;

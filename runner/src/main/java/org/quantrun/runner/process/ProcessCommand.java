@@ -27,8 +27,8 @@ import picocli.CommandLine.Parameters;
     description = {
       "Processes instrument exports with a method into one results folder per run.",
       "",
-      "Each folder holds results.csv, results-wide.csv, calibration.csv, calibration-levels.csv, qc.csv, reruns.csv, "
-          + "run.json, report.html and audit.json. It is named from the run's id (else the export's name) and never "
+      "Each folder holds results.csv, results-wide.csv, calibration.csv, calibration-levels.csv, qc.csv, "
+          + "reruns.csv, run.json, report.html and the audit trail audit.json. It is named from the run's id (else the export's name) and never "
           + "overwrites an earlier folder: NAME, NAME-2, NAME-3, ..."
     },
     exitCodeListHeading = "%nExit codes (for several exports, the highest that applies):%n",

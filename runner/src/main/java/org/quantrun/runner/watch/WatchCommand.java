@@ -27,10 +27,12 @@ import picocli.CommandLine.Parameters;
     mixinStandardHelpOptions = true,
     sortOptions = false,
     description = {
-      "Watches a drop folder and processes every complete export put into it: its results folder goes to",
-      "DIR/<run>/, the export to INBOX/archive/YYYY-MM-DD/; an export that cannot be processed goes to",
-      "INBOX/failed/ beside <name>.error.txt saying what was wrong and what to do. Nothing is deleted or",
-      "overwritten; a restart after a crash finishes each file exactly once. Runs until stopped."
+      "Watches a drop folder and processes every complete export put into it: its results folder goes to "
+          + "DIR/<run>/, the export to INBOX/archive/YYYY-MM-DD/; an export that cannot be processed goes to "
+          + "INBOX/failed/ beside <name>.error.txt saying what was wrong and what to do.",
+      "",
+      "Nothing is deleted or overwritten; a restart after a crash finishes each file exactly once. Runs "
+          + "until stopped."
     },
     exitCodeListHeading = "%nExit codes:%n",
     exitCodeList = {
