@@ -40,7 +40,9 @@ public final class TableRunAssembler {
   /** A header name with a unit in brackets after it: the name, then the unit. */
   private static final Pattern TRAILING_UNIT = Pattern.compile("(.*?\\S)\\s*[(\\[]\\s*([^()\\[\\]]*?)\\s*[)\\]]");
   private static final Pattern DECIMAL_COMMA_LINE = Pattern.compile("\\d+,\\d+");
-  private static final Pattern ANALYTE_AND_LINE = Pattern.compile("([A-Z][a-z]?)\\s*[ _]?\\s*(\\d.*)");
+  private static final Pattern ANALYTE_AND_LINE = Pattern.compile("([A-Z][a-z]?)\\s*[ _-]?\\s*(\\d.*)");
+  /** An analyte line written mass first, then the element, then anything (a cell mode): "111Cd [He]". */
+  private static final Pattern MASS_FIRST = Pattern.compile("(\\d+)\\s*([A-Z][a-z]?)(?=$|[\\s\\[(])\\s*(.*)");
 
   private final String sourceName;
   private final String importerId;
@@ -747,7 +749,13 @@ public final class TableRunAssembler {
         throw new ImportException(sourceName, new SourcePosition(line, column(colAnalyteLine)), "analyte line is empty");
       }
       Matcher m = ANALYTE_AND_LINE.matcher(text);
-      al = m.matches() ? analyteLine(m.group(1), m.group(2)) : analyteLine(text, "");
+      if (m.matches()) {
+        al = analyteLine(m.group(1), m.group(2));
+      } else {
+        // ICP-MS labels write the mass first: "111Cd", "208Pb (He)"
+        Matcher mass = MASS_FIRST.matcher(text);
+        al = mass.matches() ? analyteLine(mass.group(2), (mass.group(1) + " " + mass.group(3)).strip()) : analyteLine(text, "");
+      }
     }
     if (lineCache.size() > settings.maxAnalyteLines()) {
       throw tooManyLines(line, column(alCol));

@@ -184,6 +184,17 @@ class DelimitedImporterTest extends ImporterContract {
   }
 
   @Test
+  @DisplayName("ICP-MS channel labels written mass first, or with a hyphen, give the element and the mass")
+  void massFirstChannelLabels() throws ImportException {
+    // common practice: ICP-MS software labels isotopes "111Cd", "208Pb (He)" or "Cd-111"
+    String text = "Sample ID,Channel,Intensity\nA,111Cd,1\nA,208Pb (He),2\nA,Cu-63,3\nA,7Li [NoGas],4\nA,Unknown X,5\n";
+    RawRun run = read(text, ImportSettings.DEFAULT);
+    assertEquals(List.of(AnalyteLine.of("Cd", "111"), AnalyteLine.of("Pb", "208 (He)"), AnalyteLine.of("Cu", "63"),
+        AnalyteLine.of("Li", "7 [NoGas]"), AnalyteLine.of("Unknown X", "")),
+        run.injections().get(0).lines().stream().map(LineReadings::analyteLine).toList());
+  }
+
+  @Test
   @DisplayName("with the profile's delimiter wrong for the file, the missing header error names the delimiter the lines show")
   void wrongFixedDelimiterIsNamed() {
     ImportSettings comma = ImportSettings.DEFAULT.toBuilder().delimiter(',').build();
