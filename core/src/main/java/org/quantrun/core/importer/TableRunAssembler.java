@@ -41,6 +41,10 @@ public final class TableRunAssembler {
   private static final Pattern TRAILING_UNIT = Pattern.compile("(.*?\\S)\\s*[(\\[]\\s*([^()\\[\\]]*?)\\s*[)\\]]");
   private static final Pattern DECIMAL_COMMA_LINE = Pattern.compile("\\d+,\\d+");
   private static final Pattern ANALYTE_AND_LINE = Pattern.compile("([A-Z][a-z]?)\\s*[ _-]?\\s*(\\d.*)");
+  /** Beside the default wide-column pattern: an isotope written mass first, "111Cd [ug/L]", "208Pb mean". */
+  private static final Pattern WIDE_MASS_FIRST = Pattern.compile(
+      "(?<line>\\d+)\\s*(?<analyte>[A-Z][a-z]?)(?:\\s*[\\[(](?<unit>[^\\])]+)[\\])])?"
+          + "(?:[ _]+(?<stat>(?i:mean|sd|rsd|rep ?\\d+)))?");
   /** An analyte line written mass first, then the element, then anything (a cell mode): "111Cd [He]". */
   private static final Pattern MASS_FIRST = Pattern.compile("(\\d+)\\s*([A-Z][a-z]?)(?=$|[\\s\\[(])\\s*(.*)");
 
@@ -293,6 +297,9 @@ public final class TableRunAssembler {
         }
       } else {
         Matcher m = settings.wideColumnPattern().matcher(raw);
+        if (!m.matches() && settings.wideColumnPattern() == ImportSettings.DEFAULT_WIDE_PATTERN) {
+          m = WIDE_MASS_FIRST.matcher(raw);
+        }
         if (m.matches()) {
           WideColumn w = wideColumn(m, i);
           known++;

@@ -192,6 +192,13 @@ class DelimitedImporterTest extends ImporterContract {
     assertEquals(List.of(AnalyteLine.of("Cd", "111"), AnalyteLine.of("Pb", "208 (He)"), AnalyteLine.of("Cu", "63"),
         AnalyteLine.of("Li", "7 [NoGas]"), AnalyteLine.of("Unknown X", "")),
         run.injections().get(0).lines().stream().map(LineReadings::analyteLine).toList());
+    RawRun wide = read("Sample,111Cd [cps],208Pb [cps],208Pb sd\nA,10,20,0.5\n",
+        ImportSettings.DEFAULT.toBuilder().layout(Layout.WIDE).build());
+    LineReadings pb = wide.injections().get(0).lines().get(1);
+    assertEquals(List.of(AnalyteLine.of("Cd", "111"), AnalyteLine.of("Pb", "208")),
+        wide.injections().get(0).lines().stream().map(LineReadings::analyteLine).toList());
+    assertEquals(Optional.of("cps"), pb.unit());
+    assertReading(pb.reportedSd().orElseThrow(), 0.5);
   }
 
   @Test
