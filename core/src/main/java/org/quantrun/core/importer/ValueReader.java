@@ -1,8 +1,11 @@
 package org.quantrun.core.importer;
 
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.OptionalDouble;
 import java.util.Set;
+import java.util.regex.Pattern;
 
 /**
  * Reads the text of one value into a {@link Reading}, honouring the decimal and thousands
@@ -59,7 +62,25 @@ public final class ValueReader {
       return new Reading(Double.NaN, java.util.Optional.of("\"" + s + "\" is not a number"), line, column);
     }
     throw new ImportException(sourceName, new SourcePosition(line, column),
-        what + " \"" + s + "\" is not a number" + hint());
+        what + " \"" + s + "\" is not a number" + hint() + otherFormat(s));
+  }
+
+  /**
+   * For a text that is a number in another common format (thousands separated, or the other decimal
+   * separator), the setting that reads it; else empty.
+   */
+  private String otherFormat(String s) {
+    char other = decimal == '.' ? ',' : '.';
+    String o = Pattern.quote(String.valueOf(other));
+    String d = Pattern.quote(String.valueOf(decimal));
+    List<String> ways = new ArrayList<>(2);
+    if (!(hasGrouping && grouping == other) && s.matches("[+-]?\\d{1,3}(" + o + "\\d{3})+(" + d + "\\d*)?")) {
+      ways.add("thousands separator '" + other + "' (grouping_separator in the import profile)");
+    }
+    if (s.matches("[+-]?\\d*" + o + "\\d+([eE][+-]?\\d+)?")) {
+      ways.add("decimal separator '" + other + "' (decimal_separator in the import profile)");
+    }
+    return ways.isEmpty() ? "" : "; it reads as a number with " + String.join(", or with ", ways);
   }
 
   private String hint() {

@@ -44,6 +44,27 @@ class ValueReaderTest {
   }
 
   @Test
+  @DisplayName("a number in another common format is refused with the setting that would read it")
+  void otherFormatIsNamed() {
+    // common practice: the two number formats of exports, 1,462.2 and 1.462,2
+    ValueReader r = reader('.', null);
+    assertEquals("run.csv:3:8: Intensity \"1,462.2\" is not a number (decimal separator '.', no thousands separator); it"
+        + " reads as a number with thousands separator ',' (grouping_separator in the import profile)",
+        assertThrows(ImportException.class, () -> r.read("1,462.2", "Intensity", 3, 8)).getMessage());
+    assertTrue(assertThrows(ImportException.class, () -> r.read("464,4", "Intensity", 3, 8)).getMessage()
+        .endsWith("; it reads as a number with decimal separator ',' (decimal_separator in the import profile)"));
+    assertTrue(assertThrows(ImportException.class, () -> r.read("1,462", "Intensity", 3, 8)).getMessage()
+        .endsWith("; it reads as a number with thousands separator ',' (grouping_separator in the import profile), or with"
+            + " decimal separator ',' (decimal_separator in the import profile)"));
+    ValueReader eu = reader(',', null);
+    assertTrue(assertThrows(ImportException.class, () -> eu.read("1.462,2", "Intensity", 3, 8)).getMessage()
+        .endsWith("; it reads as a number with thousands separator '.' (grouping_separator in the import profile)"));
+    // text that is no number in any format gets no suggestion
+    assertTrue(assertThrows(ImportException.class, () -> r.read("19x9.8", "Intensity", 3, 8)).getMessage()
+        .endsWith("(decimal separator '.', no thousands separator)"));
+  }
+
+  @Test
   @DisplayName("markers and empty cells become invalid readings with a reason and their position")
   void markers() throws ImportException {
     ValueReader r = reader('.', null);
