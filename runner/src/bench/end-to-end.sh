@@ -64,7 +64,7 @@ run() {
           if [ "$value" -gt "$hwm" ]; then hwm=$value; echo "$hwm" > "$work/hwm"; fi
           break
         fi
-      done < "/proc/$pid/status" 2>/dev/null || true
+      done 2>/dev/null < "/proc/$pid/status" || true
       read -r -t 0.02 -u 3 _ || true
     done
   ) &
