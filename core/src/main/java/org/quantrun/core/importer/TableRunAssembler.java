@@ -794,20 +794,16 @@ public final class TableRunAssembler {
     if (rep.isEmpty()) {
       return;
     }
-    for (int k = 0; k < lb.repCount; k++) {
-      if (lb.repTexts[k].equals(rep)) {
-        throw new ImportException(sourceName, new SourcePosition(line, column(colRep)), "replicate " + rep + " of "
-            + lb.analyteLine.label() + " is given twice for injection " + current.sequence + " '" + current.sampleId
-            + "' (lines " + lb.repLines[k] + " and " + line + ")"
-            + (colSeq < 0 ? "; without a sequence column, the rows of one sample up to the next sample are one injection" : ""));
-      }
+    if (lb.repLines == null) {
+      lb.repLines = new HashMap<>(8);
     }
-    if (lb.repCount == lb.repTexts.length) {
-      lb.repTexts = Arrays.copyOf(lb.repTexts, lb.repCount * 2 + 2);
-      lb.repLines = Arrays.copyOf(lb.repLines, lb.repTexts.length);
+    Integer before = lb.repLines.putIfAbsent(rep, line);
+    if (before != null) {
+      throw new ImportException(sourceName, new SourcePosition(line, column(colRep)), "replicate " + rep + " of "
+          + lb.analyteLine.label() + " is given twice for injection " + current.sequence + " '" + current.sampleId
+          + "' (lines " + before + " and " + line + ")"
+          + (colSeq < 0 ? "; without a sequence column, the rows of one sample up to the next sample are one injection" : ""));
     }
-    lb.repTexts[lb.repCount] = rep;
-    lb.repLines[lb.repCount++] = line;
   }
 
   private void wideRow(List<String> cells, int line, String unit, String remark) throws ImportException {
@@ -1007,10 +1003,8 @@ public final class TableRunAssembler {
     Optional<Reading> sd = Optional.empty();
     Optional<String> unit = Optional.empty();
     List<String> remarks = List.of();
-    /** The replicate numbers the rows gave, as written, and their lines. */
-    String[] repTexts = new String[0];
-    int[] repLines = new int[0];
-    int repCount;
+    /** The line of each replicate number the rows gave, as written; null until a row gives one. */
+    Map<String, Integer> repLines;
 
     LineBuilder(AnalyteLine analyteLine, SourcePosition position) {
       this.analyteLine = analyteLine;

@@ -143,7 +143,7 @@ public final class RunProcessor {
    * position measured again, two sequences in one file): the rows of their results share that
    * position, so a LIMS keyed by it must tell them apart by sample ID and time.
    */
-  static void repeatedPositions(List<Classified> injections, List<String> findings) {
+  private static void repeatedPositions(List<Classified> injections, List<String> findings) {
     Map<Integer, List<Classified>> byPosition = new LinkedHashMap<>();
     for (Classified c : injections) {
       byPosition.computeIfAbsent(c.position(), k -> new ArrayList<>(1)).add(c);
