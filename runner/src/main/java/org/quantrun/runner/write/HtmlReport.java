@@ -132,16 +132,23 @@ public final class HtmlReport {
    */
   public static void write(Writer out, RunResult run, ResultTables tables, ReportingRules reporting, Context context)
       throws IOException {
+    write(out, run, tables, reporting, context, new ChartSet(run));
+  }
+
+  /** As {@link #write(Writer, RunResult, ResultTables, ReportingRules, Context)}, with charts another thread may help draw. */
+  static void write(Writer out, RunResult run, ResultTables tables, ReportingRules reporting, Context context,
+      ChartSet charts) throws IOException {
     Sink h = new Sink(out);
     try {
-      page(h, run, tables, reporting, context);
+      page(h, run, tables, reporting, context, charts);
       h.flush();
     } catch (UncheckedIOException e) {
       throw e.getCause();
     }
   }
 
-  private static void page(Sink h, RunResult run, ResultTables tables, ReportingRules reporting, Context context) {
+  private static void page(Sink h, RunResult run, ResultTables tables, ReportingRules reporting, Context context,
+      ChartSet charts) {
     String runId = Html.escape(run.run().runId());
     h.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
         .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
@@ -156,7 +163,7 @@ public final class HtmlReport {
 
     summary(h, run, context);
     findings(h, run);
-    calibrations(h, run, tables);
+    calibrations(h, run, tables, charts);
     section(h, "qc", "QC checks", tables.qc(), List.of(
         col("position", "pos."), col("sample_id", "sample"), col("check", "check"), col("analyte", "analyte line"),
         col("measured", "measured"), col("expected", "expected"), col("result", "result"), col("unit_of_result", "unit"),
@@ -280,7 +287,7 @@ public final class HtmlReport {
     h.append("</ul>\n");
   }
 
-  private static void calibrations(Sink h, RunResult run, ResultTables tables) {
+  private static void calibrations(Sink h, RunResult run, ResultTables tables, ChartSet charts) {
     h.append("<h2 id=\"calibrations\">Calibrations</h2>\n");
     if (run.calibrations().isEmpty()) {
       h.append("<p>No analyte lines.</p>\n");
@@ -302,7 +309,7 @@ public final class HtmlReport {
       h.append("<div class=\"side\">\n");
       Optional<String> plot;
       try {
-        plot = CalibrationChart.svg(c, anchor + "-plot");
+        plot = charts.get(i);
       } catch (RuntimeException | java.awt.AWTError | LinkageError | InternalError e) {
         // a machine without fonts for Java's drawing: the numbers below still stand, the report says why there is no plot
         LOG.warn("the calibration plot of {} could not be drawn: {}", c.analyteKey(), e.toString());

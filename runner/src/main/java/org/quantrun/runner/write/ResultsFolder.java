@@ -14,7 +14,6 @@ import java.time.Clock;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
-import java.util.concurrent.ExecutionException;
 import java.util.concurrent.FutureTask;
 import org.quantrun.core.method.Method;
 import org.quantrun.core.model.RunResult;
@@ -66,12 +65,13 @@ public final class ResultsFolder {
       Path dir = out.staging();
       List<Audit.OutputFile> written = new ArrayList<>();
       FileBody html = null;
+      ChartSet charts = new ChartSet(run);
       if (formats.contains(OutputFormat.HTML)) {
         HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
             method.identity().description(), audit.inputs());
         html = o -> {
           try (Writer w = textWriter(o)) {
-            HtmlReport.write(w, run, tables, method.reporting(), ctx);
+            HtmlReport.write(w, run, tables, method.reporting(), ctx, charts);
           }
         };
       }
@@ -104,6 +104,10 @@ public final class ResultsFolder {
             }
           }));
         }
+        if (report != null) {
+          // done with the tables: draw the report's charts from the last one back
+          charts.help();
+        }
       } catch (IOException | RuntimeException | Error e) {
         if (report != null) {
           try {
@@ -129,32 +133,7 @@ public final class ResultsFolder {
    * staging folder is never removed under it) and gives its entry, or its failure.
    */
   private static Audit.OutputFile finished(FutureTask<Audit.OutputFile> task) throws IOException {
-    boolean interrupted = false;
-    try {
-      while (true) {
-        try {
-          return task.get();
-        } catch (InterruptedException e) {
-          interrupted = true;
-        } catch (ExecutionException e) {
-          Throwable cause = e.getCause();
-          if (cause instanceof IOException io) {
-            throw io;
-          }
-          if (cause instanceof RuntimeException r) {
-            throw r;
-          }
-          if (cause instanceof Error err) {
-            throw err;
-          }
-          throw new IllegalStateException(cause);
-        }
-      }
-    } finally {
-      if (interrupted) {
-        Thread.currentThread().interrupt();
-      }
-    }
+    return Uninterruptibly.get(task);
   }
 
   /** UTF-8 text into a stream, as {@link Files#newBufferedWriter(Path, java.nio.charset.Charset, java.nio.file.OpenOption...)} writes it. */
