@@ -39,7 +39,7 @@ final class ChartSet {
    * @return e.g. {@code cal-1-plot}
    */
   static String id(int i) {
-    return "cal-" + (i + 1) + "-plot";
+    return HtmlReport.anchor(i) + "-plot";
   }
 
   /**

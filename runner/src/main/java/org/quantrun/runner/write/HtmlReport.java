@@ -287,6 +287,16 @@ public final class HtmlReport {
     h.append("</ul>\n");
   }
 
+  /**
+   * The element id of the section of the {@code i}-th calibration.
+   *
+   * @param i the calibration's index in the run
+   * @return e.g. {@code cal-1}
+   */
+  static String anchor(int i) {
+    return "cal-" + (i + 1);
+  }
+
   private static void calibrations(Sink h, RunResult run, ResultTables tables, ChartSet charts) {
     h.append("<h2 id=\"calibrations\">Calibrations</h2>\n");
     if (run.calibrations().isEmpty()) {
@@ -298,7 +308,7 @@ public final class HtmlReport {
     int levelKey = levels.column("analyte_key");
     for (int i = 0; i < run.calibrations().size(); i++) {
       CalibrationResult c = run.calibrations().get(i);
-      String anchor = "cal-" + (i + 1);
+      String anchor = anchor(i);
       h.append("<section class=\"calibration\" id=\"").append(anchor).append("\">\n<h3>")
           .append(Html.escape(c.analyteKey())).append(c.reportedLine() ? "" : " (alternate line)").append(": <span class=\"")
           .append(cls(c.status().token())).append("\">").append(c.status() == CalibrationStatus.ACCEPTED ? "\u2713 " : "\u2717 ")

@@ -65,8 +65,9 @@ public final class ResultsFolder {
       Path dir = out.staging();
       List<Audit.OutputFile> written = new ArrayList<>();
       FileBody html = null;
-      ChartSet charts = new ChartSet(run);
-      if (formats.contains(OutputFormat.HTML)) {
+      // the report's charts, drawn by the report's thread and, once the tables are written, by this one
+      ChartSet charts = formats.contains(OutputFormat.HTML) ? new ChartSet(run) : null;
+      if (charts != null) {
         HtmlReport.Context ctx = new HtmlReport.Context(quantrunVersion, clock.instant().toString(),
             method.identity().description(), audit.inputs());
         html = o -> {
@@ -105,13 +106,12 @@ public final class ResultsFolder {
           }));
         }
         if (report != null) {
-          // done with the tables: draw the report's charts from the last one back
           charts.help();
         }
       } catch (IOException | RuntimeException | Error e) {
         if (report != null) {
           try {
-            finished(report);
+            Uninterruptibly.get(report);
           } catch (IOException | RuntimeException | Error also) {
             e.addSuppressed(also);
           }
@@ -119,21 +119,14 @@ public final class ResultsFolder {
         throw e;
       }
       if (report != null) {
-        written.add(finished(report));
+        // waited for even when this thread is interrupted, so the staging folder is never removed under it
+        written.add(Uninterruptibly.get(report));
       } else if (html != null) {
         written.add(file(dir, "report.html", html));
       }
       Files.write(dir.resolve(AUDIT), audit.json(clock.instant(), written));
       return out.publish();
     }
-  }
-
-  /**
-   * Waits for a file written on another thread (even when this thread is interrupted, so that the
-   * staging folder is never removed under it) and gives its entry, or its failure.
-   */
-  private static Audit.OutputFile finished(FutureTask<Audit.OutputFile> task) throws IOException {
-    return Uninterruptibly.get(task);
   }
 
   /** UTF-8 text into a stream, as {@link Files#newBufferedWriter(Path, java.nio.charset.Charset, java.nio.file.OpenOption...)} writes it. */
